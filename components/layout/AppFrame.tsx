@@ -1,0 +1,55 @@
+import { Link, usePathname } from 'expo-router';
+import type { ReactNode } from 'react';
+import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
+import { colors, fonts, space, theme, useBreakpoint } from '../ui';
+import { NAV_ITEMS } from './nav';
+
+
+/** The frame around every screen: brand bar with navigation, then a scrolling content column. */
+export function AppFrame({ children, title }: { children: ReactNode; title?: string }) {
+  const { isWide } = useBreakpoint();
+  const pathname = usePathname();
+  return (
+    <View style={theme.screen}>
+      <View style={[styles.bar, isWide && styles.barWide]}>
+        <Link href="/" asChild>
+          <Pressable accessibilityRole="link" style={styles.brand}>
+            <View style={styles.mark} />
+            <Text style={styles.brandText}>Jigwright</Text>
+          </Pressable>
+        </Link>
+        <View style={styles.nav}>
+          {NAV_ITEMS.map((n) => (
+            <Link key={n.href} href={n.href as never} style={[styles.navLink, pathname === n.href && styles.navActive]}>
+              {n.label}
+            </Link>
+          ))}
+        </View>
+      </View>
+      <ScrollView contentContainerStyle={theme.content}>
+        {title ? (
+          <Text accessibilityRole="header" style={theme.title}>
+            {title}
+          </Text>
+        ) : null}
+        {children}
+      </ScrollView>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  bar: {
+    backgroundColor: colors.pineDark,
+    paddingHorizontal: space.lg,
+    paddingVertical: space.md,
+    gap: space.sm,
+  },
+  barWide: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between' },
+  brand: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  mark: { width: 18, height: 18, borderRadius: 3, borderWidth: 3, borderColor: colors.copper, transform: [{ rotate: '45deg' }] },
+  brandText: { fontFamily: fonts.bold, fontSize: 20, color: colors.paper, letterSpacing: 0.5 },
+  nav: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg },
+  navLink: { fontFamily: fonts.medium, fontSize: 15, color: colors.pineSoft, paddingVertical: space.xs },
+  navActive: { color: colors.paper, textDecorationLine: 'underline' },
+});

@@ -1,0 +1,93 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ZodError } from 'zod';
+
+/** An error with an HTTP status and a stable code; its message is safe to show to the user. */
+export class HttpError extends Error {
+  constructor(
+    public status: number,
+    public code: string,
+    message: string,
+    public details?: unknown,
+  ) {
+    super(message);
+  }
+}
+
+export const badRequest = (message: string, details?: unknown) => new HttpError(400, 'bad_request', message, details);
+export const notFound = (what = 'Not found') => new HttpError(404, 'not_found', what);
+export const forbidden = (message = 'You do not have access to this') => new HttpError(403, 'forbidden', message);
+export const unauthorized = (message = 'Sign in first') => new HttpError(401, 'unauthorized', message);
+export const conflict = (message: string) => new HttpError(409, 'conflict', message);
+
+/** Field-level messages from a zod error: { "device.width": "Must be at least 10" }. */
+export function zodFields(err: ZodError): Record<string, string> {
+  const fields: Record<string, string> = {};
+  for (const issue of err.issues) {
+    const key = issue.path.join('.') || '_';
+    if (!fields[key]) fields[key] = issue.message;
+  }
+  return fields;
+}
+
+export const apiNotFound: RequestHandler = (req, _res, next) => {
+  next(new HttpError(404, 'not_found', `No API route for ${req.method} ${req.path}`));
+};
+
+/** Every error leaves as JSON { error: { code, message, fields? } }; never a stack trace. */
+export function errorHandler(log: { error: (o: object, m: string) => void }): ErrorRequestHandler {
+  return (err, req, res, _next) => {
+    let status = 500;
+    let body: { code: string; message: string; fields?: Record<string, string>; details?: unknown };
+    if (err instanceof HttpError) {
+      status = err.status;
+      body = { code: err.code, message: err.message };
+      if (err.details && typeof err.details === 'object' && 'fields' in (err.details as object)) {
+        body.fields = (err.details as { fields: Record<string, string> }).fields;
+      } else if (err.details !== undefined) body.details = err.details;
+    } else if (err instanceof ZodError) {
+      status = 400;
+      const fields = zodFields(err);
+      body = { code: 'invalid_input', message: summarizeFields(fields), fields };
+    } else if (err?.type === 'entity.parse.failed') {
+      status = 400;
+      body = { code: 'invalid_json', message: 'The request body is not valid JSON' };
+    } else if (err?.type === 'entity.too.large') {
+      status = 413;
+      body = { code: 'too_large', message: 'The request body is too large' };
+    } else if (err?.code === 'LIMIT_FILE_SIZE') {
+      status = 413;
+      body = { code: 'file_too_large', message: 'The file is larger than the upload limit' };
+    } else if (typeof err?.code === 'string' && err.code.startsWith('LIMIT_')) {
+      status = 400;
+      body = { code: 'bad_upload', message: `Upload refused: ${err.message}` };
+    } else if (isDatabaseDown(err)) {
+      status = 503;
+      body = { code: 'unavailable', message: 'The database is unavailable; try again in a moment' };
+    } else {
+      body = { code: 'internal', message: 'Something went wrong on our side' };
+    }
+    if (status >= 500) log.error({ err, url: req.originalUrl }, 'request failed');
+    if (!res.headersSent) res.status(status).json({ error: body });
+    else res.end();
+  };
+}
+
+function summarizeFields(fields: Record<string, string>): string {
+  const entries = Object.entries(fields);
+  if (entries.length === 0) return 'Invalid input';
+  const [k, v] = entries[0];
+  const first = k === '_' ? v : `${k}: ${v}`;
+  return entries.length === 1 ? first : `${first} (and ${entries.length - 1} more)`;
+}
+
+function isDatabaseDown(err: any): boolean {
+  const code = err?.code;
+  return (
+    code === 'ECONNREFUSED' ||
+    code === 'ECONNRESET' ||
+    code === '57P01' || // admin_shutdown
+    code === '57P02' ||
+    code === '57P03' || // cannot_connect_now
+    /Connection terminated|timeout exceeded when trying to connect/i.test(String(err?.message ?? ''))
+  );
+}

@@ -1,0 +1,14 @@
+import path from 'node:path';
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  resolve: { alias: { '@': path.resolve(__dirname) } },
+  test: {
+    include: ['tests/unit/**/*.test.ts', 'tests/api/**/*.test.ts'],
+    globalSetup: ['tests/support/globalSetup.ts'],
+    testTimeout: 30000,
+    hookTimeout: 60000,
+    pool: 'forks',
+    maxWorkers: 2,
+  },
+});
