@@ -2,7 +2,7 @@ import path from 'node:path';
 import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
-  resolve: { alias: { '@': path.resolve(__dirname) } },
+  resolve: { alias: { '@': import.meta.dirname } },
   test: {
     include: ['tests/browser/**/*.test.ts'],
     globalSetup: ['tests/browser/globalSetup.ts'],

@@ -2,7 +2,7 @@ import path from 'node:path';
 import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
-  resolve: { alias: { '@': path.resolve(__dirname) } },
+  resolve: { alias: { '@': import.meta.dirname } },
   test: {
     include: ['tests/unit/**/*.test.ts', 'tests/api/**/*.test.ts'],
     globalSetup: ['tests/support/globalSetup.ts'],

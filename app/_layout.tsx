@@ -6,6 +6,7 @@ import { Stack } from 'expo-router';
 import { useState } from 'react';
 import { ActivityIndicator, View } from 'react-native';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
+import { CurrentShopProvider } from '@/components/shop/CurrentShop';
 import { colors } from '@/components/ui';
 
 export default function RootLayout() {
@@ -22,7 +23,9 @@ export default function RootLayout() {
   return (
     <SafeAreaProvider>
       <QueryClientProvider client={queryClient}>
-        <Stack screenOptions={{ headerShown: false, contentStyle: { backgroundColor: colors.paper } }} />
+        <CurrentShopProvider>
+          <Stack screenOptions={{ headerShown: false, contentStyle: { backgroundColor: colors.paper } }} />
+        </CurrentShopProvider>
       </QueryClientProvider>
     </SafeAreaProvider>
   );

@@ -2,6 +2,7 @@ import { Link } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import { useHealth } from '@/components/api/health';
 import { AppFrame } from '@/components/layout/AppFrame';
+import { YourShopCard } from '@/components/shop/YourShopCard';
 import { colors, radius, space, theme } from '@/components/ui';
 
 function StatusPill({ label, up }: { label: string; up: boolean | undefined }) {
@@ -18,6 +19,7 @@ export default function Home() {
   const health = useHealth();
   return (
     <AppFrame title="Your shop's jigs, templates and inserts">
+      <YourShopCard />
       <View style={theme.card}>
         <Text style={theme.body}>
           Every cut file in one place, tied to the device, charger, stock and bit it was made for — with numbered revisions

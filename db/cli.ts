@@ -1,8 +1,9 @@
-// `tsx db/cli.ts prepare`: create the database when missing, migrate, seed the demo shop.
+// `tsx db/cli.ts migrate`: create the database when missing and migrate it (a release step).
+// `tsx db/cli.ts accounts`: the demo sign-ins as JSON. The full demo set-up is server/cli/prepare.ts.
 import pg from 'pg';
 import { createDb } from './connect';
 import { migrateToLatest } from './migrate';
-import { DEMO_ACCOUNTS, SECOND_ACCOUNT, seedDemo } from './seed';
+import { DEMO_ACCOUNTS, SECOND_ACCOUNT } from './seed';
 
 export async function ensureDatabase(url: string): Promise<void> {
   const target = new URL(url);
@@ -20,7 +21,7 @@ export async function ensureDatabase(url: string): Promise<void> {
 }
 
 async function main() {
-  const cmd = process.argv[2] ?? 'prepare';
+  const cmd = process.argv[2] ?? 'migrate';
   if (cmd === 'accounts') {
     console.log(JSON.stringify([...DEMO_ACCOUNTS, SECOND_ACCOUNT]));
     return;
@@ -30,14 +31,11 @@ async function main() {
   await ensureDatabase(url);
   const db = createDb(url);
   try {
-    if (cmd === 'migrate' || cmd === 'prepare') {
+    if (cmd === 'migrate') {
       const ran = await migrateToLatest(db);
       console.log(`[db] migrations: ${ran.length ? ran.join(', ') : 'up to date'}`);
     }
-    if (cmd === 'seed' || cmd === 'prepare') {
-      await seedDemo(db);
-      console.log('[db] demo shop seeded');
-    }
+    else throw new Error(`unknown command ${cmd}: use migrate or accounts`);
   } finally {
     await db.destroy();
   }

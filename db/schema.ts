@@ -3,6 +3,7 @@ import type { ColumnType, Generated, Insertable, Selectable } from 'kysely';
 
 type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 export type Role = 'owner' | 'editor' | 'viewer';
+export type FileRole = 'original' | 'dxf' | 'dxf_in' | 'svg' | 'model';
 
 export interface UsersTable {
   id: Generated<string>;
@@ -10,12 +11,12 @@ export interface UsersTable {
   name: string;
   password_hash: string;
   units: Generated<'mm' | 'in'>;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 export interface SessionsTable {
   id: Generated<string>;
   user_id: string;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
   expires_at: Timestamp;
   revoked_at: Timestamp | null;
 }
@@ -23,13 +24,13 @@ export interface ShopsTable {
   id: Generated<string>;
   name: string;
   slug: string;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 export interface MembershipsTable {
   shop_id: string;
   user_id: string;
   role: Role;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 export interface InvitesTable {
   id: Generated<string>;
@@ -41,7 +42,7 @@ export interface InvitesTable {
   expires_at: Timestamp;
   accepted_at: Timestamp | null;
   accepted_by: string | null;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 export interface PasswordResetsTable {
   id: Generated<string>;
@@ -49,7 +50,7 @@ export interface PasswordResetsTable {
   token_hash: string;
   expires_at: Timestamp;
   used_at: Timestamp | null;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 export interface DesignsTable {
   id: Generated<string>;
@@ -64,8 +65,8 @@ export interface DesignsTable {
   forked_from_revision_id: string | null;
   latest_revision_number: Generated<number>;
   latest_status: Generated<string>;
-  created_at: Generated<Timestamp>;
-  updated_at: Generated<Timestamp>;
+  created_at: Timestamp;
+  updated_at: Timestamp;
   search: ColumnType<string, never, never>;
 }
 export interface RevisionsTable {
@@ -81,11 +82,11 @@ export interface RevisionsTable {
   fit_notes: Generated<unknown>;
   summary: unknown;
   units: Generated<'mm' | 'in'>;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 export interface RevisionFilesTable {
   revision_id: string;
-  role: 'original' | 'dxf' | 'svg';
+  role: FileRole;
   object_key: string;
   content_type: string;
   bytes: number;
@@ -99,7 +100,7 @@ export interface ActivityTable {
   actor_id: string | null;
   action: string;
   detail: Generated<unknown>;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 export interface DevicesTable {
   id: Generated<string>;
@@ -109,7 +110,7 @@ export interface DevicesTable {
   length_mm: number;
   thickness_mm: number;
   case_allowance_mm: Generated<number>;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 export interface ChargersTable {
   id: Generated<string>;
@@ -121,7 +122,7 @@ export interface ChargersTable {
   thickness_mm: number;
   range_min_mm: number | null;
   range_max_mm: number | null;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 export interface CutLogsTable {
   id: Generated<string>;
@@ -138,7 +139,7 @@ export interface CutLogsTable {
   measured_length_mm: number | null;
   result: 'tight' | 'good' | 'loose';
   photo_key: string | null;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 
 export interface Database {

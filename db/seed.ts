@@ -33,7 +33,25 @@ export async function seedDemo(db: DB, opts: { bcryptCost?: number } = {}): Prom
     .values({ shop_id: secondShopId, user_id: users['editor@larchmere.example'], role: 'editor' })
     .onConflict((oc) => oc.doNothing())
     .execute();
+  await seedCatalog(db, shopId);
   return { shopId, secondShopId, users };
+}
+
+// Invented devices and charger pads with invented dimensions (mm).
+export const DEMO_DEVICES = [
+  { name: 'Demo phone S', width_mm: 68.4, length_mm: 142.0, thickness_mm: 7.9, case_allowance_mm: 1.2 },
+  { name: 'Demo phone L', width_mm: 77.6, length_mm: 161.2, thickness_mm: 8.4, case_allowance_mm: 1.6 },
+  { name: 'Demo phone L, rugged case', width_mm: 77.6, length_mm: 161.2, thickness_mm: 8.4, case_allowance_mm: 3.0 },
+  { name: 'Demo tablet 8', width_mm: 126.0, length_mm: 203.0, thickness_mm: 6.6, case_allowance_mm: 2.0 },
+];
+export const DEMO_CHARGERS = [
+  { name: 'Round pad 56', shape: 'round' as const, width_mm: 56, length_mm: 56, thickness_mm: 5.8, range_min_mm: 0, range_max_mm: 4 },
+  { name: 'Square pad 72', shape: 'rect' as const, width_mm: 72, length_mm: 72, thickness_mm: 7.5, range_min_mm: 1, range_max_mm: 5 },
+];
+
+async function seedCatalog(db: DB, shopId: string) {
+  await db.insertInto('devices').values(DEMO_DEVICES.map((d) => ({ ...d, shop_id: shopId }))).onConflict((oc) => oc.columns(['shop_id', 'name']).doNothing()).execute();
+  await db.insertInto('chargers').values(DEMO_CHARGERS.map((c) => ({ ...c, shop_id: shopId }))).onConflict((oc) => oc.columns(['shop_id', 'name']).doNothing()).execute();
 }
 
 async function upsertShop(db: DB, shop: { name: string; slug: string }): Promise<string> {

@@ -77,6 +77,15 @@ export class ObjectStore {
     return keys;
   }
 
+  async listWithDates(prefix = ''): Promise<{ key: string; lastModified: Date }[]> {
+    const out: { key: string; lastModified: Date }[] = [];
+    const stream = this.client.listObjectsV2(this.bucket, prefix, true);
+    for await (const item of stream as AsyncIterable<{ name?: string; lastModified?: Date }>) {
+      if (item.name) out.push({ key: item.name, lastModified: item.lastModified ?? new Date(0) });
+    }
+    return out;
+  }
+
   /** A short-lived GET link; downloads name their file through the response headers. */
   async presignGet(key: string, seconds: number, fileName?: string, contentType?: string): Promise<string> {
     const headers: Record<string, string> = {};

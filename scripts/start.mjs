@@ -42,7 +42,7 @@ try {
   }
 
   const tsx = path.join(repoRoot, 'node_modules', '.bin', 'tsx');
-  const prep = spawnSync(tsx, ['db/cli.ts', 'prepare'], { cwd: repoRoot, env, stdio: 'inherit' });
+  const prep = spawnSync(tsx, ['server/cli/prepare.ts'], { cwd: repoRoot, env, stdio: 'inherit' });
   if (prep.status !== 0) throw new Error('database preparation failed');
 
   const { ensureWebExport } = await import('./lib/web.mjs');

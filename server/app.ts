@@ -8,11 +8,27 @@ import type { Deps } from './deps';
 import { apiNotFound, errorHandler } from './http/errors';
 import { ApiRouter } from './http/router';
 import { healthRoutes } from './health/routes';
+import { generatorRoutes } from './generators/routes';
+import { calculatorRoutes } from './calculators/routes';
+import { authRoutes } from './auth/routes';
+import { shopRoutes } from './shops/routes';
+import { catalogRoutes } from './catalog/routes';
+import { cutRoutes } from './cuts/routes';
+import { designRoutes } from './designs/routes';
+import { revisionRoutes } from './revisions/routes';
 
 /** Every feature's routes, in one list: the route-coverage test reads the same list. */
 export function buildApi(deps: Deps): ApiRouter {
   const api = new ApiRouter(deps);
   healthRoutes(api);
+  generatorRoutes(api);
+  calculatorRoutes(api);
+  authRoutes(api);
+  shopRoutes(api);
+  designRoutes(api);
+  revisionRoutes(api);
+  catalogRoutes(api);
+  cutRoutes(api);
   return api;
 }
 

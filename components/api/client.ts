@@ -1,4 +1,6 @@
 // The one place the app talks HTTP. Screens use the hooks built on this, never fetch directly.
+import { CSRF_HEADER } from '../../shared/schemas/auth';
+
 export class ApiError extends Error {
   constructor(
     public status: number,
@@ -21,6 +23,8 @@ export async function api<T>(path: string, init: ApiInit = {}): Promise<T> {
     ...rest,
     headers: {
       Accept: 'application/json',
+      // The API refuses cookie-signed changes without it; a cross-site form cannot send it.
+      [CSRF_HEADER]: '1',
       ...(json !== undefined ? { 'Content-Type': 'application/json' } : {}),
       ...(headers as Record<string, string> | undefined),
     },

@@ -1,6 +1,8 @@
 import { Link, usePathname } from 'expo-router';
 import type { ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
+import { ShopSwitcher } from '../shop/ShopSwitcher';
+import { useShopContext } from '../shop/CurrentShop';
 import { colors, fonts, space, theme, useBreakpoint } from '../ui';
 import { NAV_ITEMS } from './nav';
 
@@ -9,6 +11,9 @@ import { NAV_ITEMS } from './nav';
 export function AppFrame({ children, title }: { children: ReactNode; title?: string }) {
   const { isWide } = useBreakpoint();
   const pathname = usePathname();
+  const { me } = useShopContext();
+  // While it is not known yet who is signed in (undefined), show only the entries for everyone.
+  const navItems = NAV_ITEMS.filter((n) => !n.audience || (me === undefined ? false : (n.audience === 'signed-in') === !!me));
   return (
     <View style={theme.screen}>
       <View style={[styles.bar, isWide && styles.barWide]}>
@@ -19,12 +24,13 @@ export function AppFrame({ children, title }: { children: ReactNode; title?: str
           </Pressable>
         </Link>
         <View style={styles.nav}>
-          {NAV_ITEMS.map((n) => (
+          {navItems.map((n) => (
             <Link key={n.href} href={n.href as never} style={[styles.navLink, pathname === n.href && styles.navActive]}>
               {n.label}
             </Link>
           ))}
         </View>
+        <ShopSwitcher />
       </View>
       <ScrollView contentContainerStyle={theme.content}>
         {title ? (

@@ -66,7 +66,7 @@ export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .createTable('revision_files')
     .addColumn('revision_id', 'uuid', (c) => c.notNull().references('revisions.id').onDelete('cascade'))
-    .addColumn('role', 'text', (c) => c.notNull().check(sql`role in ('original', 'dxf', 'svg')`))
+    .addColumn('role', 'text', (c) => c.notNull().check(sql`role in ('original', 'dxf', 'dxf_in', 'svg', 'model')`))
     .addColumn('object_key', 'text', (c) => c.notNull().unique())
     .addColumn('content_type', 'text', (c) => c.notNull())
     .addColumn('bytes', 'integer', (c) => c.notNull())

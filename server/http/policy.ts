@@ -1,6 +1,11 @@
 import type { Request, RequestHandler } from 'express';
 import type { Role } from '../../db/schema';
+import { isUnsafeMethod, refuseOtherOrigins, requireCsrfHeader } from '../auth/csrf';
+import { presentedToken, readSessionToken, sessionUser } from '../auth/sessions';
 import type { Deps } from '../deps';
+import { ROLE_WITH_ARTICLE } from '../../shared/schemas/auth';
+import { roleIn } from '../shops/repository';
+import { forbidden, notFound, unauthorized } from './errors';
 
 /**
  * Who may call a route — declared once per route in ApiRouter.route().
@@ -40,10 +45,43 @@ export function authOf(req: Request): AuthInfo {
 
 export const ROLE_RANK: Record<Role, number> = { viewer: 1, editor: 2, owner: 3 };
 
-export function enforce(_deps: Deps, policy: Policy): RequestHandler {
-  return (_req, _res, next) => {
-    if (policy.kind === 'public') return next();
-    // Accounts (server/auth) implement session and role checks here.
-    next(new Error(`policy ${policy.kind} is not implemented yet`));
+/** The guard that runs before every route's handlers: who is calling, and may they. */
+export function enforce(deps: Deps, policy: Policy): RequestHandler {
+  const { db, config } = deps;
+  // Named so the route-coverage test can see that this guard runs first on every route.
+  return async function enforcePolicy(req, _res, next) {
+    if (policy.kind === 'public') {
+      if (isUnsafeMethod(req)) refuseOtherOrigins(req, config);
+      return next();
+    }
+    const presented = presentedToken(req);
+    if (!presented) throw unauthorized('Sign in first');
+    // Bearer tokens are never sent by a browser on its own, so only cookie requests need the checks.
+    if (presented.via === 'cookie' && isUnsafeMethod(req)) {
+      refuseOtherOrigins(req, config);
+      requireCsrfHeader(req);
+    }
+    const claims = await readSessionToken(config, presented.token);
+    if (!claims) throw unauthorized('Your sign-in is not valid; sign in again');
+    const user = await sessionUser(db, claims.sessionId, claims.userId);
+    if (!user) throw unauthorized('Your session has ended; sign in again');
+    const auth: AuthInfo = { user: { id: user.id, email: user.email, name: user.name }, sessionId: claims.sessionId };
+
+    if (policy.kind === 'shop') {
+      const shopId = await policy.shop(req, deps);
+      const role = shopId ? await roleIn(db, shopId, user.id) : null;
+      // Outsiders learn nothing: a shop they are not in looks the same as one that does not exist.
+      if (!shopId || !role) throw notFound('Not found, or not shared with you');
+      if (ROLE_RANK[role] < ROLE_RANK[policy.role]) throw forbidden(needsRoleMessage(policy.role, role));
+      auth.shopId = shopId;
+      auth.role = role;
+    }
+    req.auth = auth;
+    next();
   };
+}
+
+function needsRoleMessage(needed: Role, actual: Role): string {
+  const who = needed === 'owner' ? "Only the shop's owners can do this" : 'This needs an editor or owner';
+  return `${who}; you are ${ROLE_WITH_ARTICLE[actual]} in this shop`;
 }

@@ -4,9 +4,7 @@ import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
-import { createDb } from '../../db/connect';
-import { migrateToLatest } from '../../db/migrate';
-import { seedDemo } from '../../db/seed';
+import { prepare } from '../../server/cli/prepare';
 import { freePort, repoRoot, stopChild, waitForPort } from '../../scripts/lib/services.mjs';
 import { databaseUrl, serviceEnv, startTestServices } from '../support/services';
 
@@ -35,10 +33,7 @@ async function prepareAndServe(services: Awaited<ReturnType<typeof startTestServ
   await admin.query('CREATE DATABASE e2e');
   await admin.end();
   const url = databaseUrl(services.adminUrl, 'e2e');
-  const db = createDb(url);
-  await migrateToLatest(db);
-  await seedDemo(db, { bcryptCost: 4 });
-  await db.destroy();
+  await prepare({ ...serviceEnv(services, url) });
 
   const port = await freePort();
   const env = { ...process.env, ...serviceEnv(services, url), PORT: String(port), WEB_DIST: path.join(repoRoot, 'dist'), PUBLIC_URL: `http://127.0.0.1:${port}`, RATE_LIMIT_DISABLED: 'true' };

@@ -1,0 +1,41 @@
+// Generator declarations and previews. Pure computation on the request's parameters: no shop
+// data is read or written, so the routes are public.
+import { runGenerator, getGenerator, GENERATORS } from '../../shared/generators';
+import { renderSvg } from '../../shared/geometry/svg';
+import { paramDocs } from '../../shared/params';
+import { HttpError, notFound } from '../http/errors';
+import type { ApiRouter } from '../http/router';
+
+/** Same declarations every time: built once. */
+const LISTING = GENERATORS.map((g) => ({
+  id: g.id,
+  title: g.title,
+  kind: g.kind,
+  description: g.description,
+  params: g.params,
+  deviceParams: g.deviceParams ?? [],
+  docs: paramDocs(g.params),
+}));
+
+export function generatorRoutes(api: ApiRouter): void {
+  api.route('get', '/generators', { kind: 'public' }, (_req, res) => {
+    res.json({ generators: LISTING });
+  });
+
+  api.route('post', '/generators/:id/preview', { kind: 'public' }, (req, res) => {
+    const id = req.params.id as string;
+    const gen = getGenerator(id);
+    if (!gen) throw notFound(`There is no generator "${id}"`);
+    const body = (req.body ?? {}) as { params?: unknown };
+    const run = runGenerator(id, body.params);
+    if (!run.ok) throw new HttpError(400, 'invalid_params', run.message, { fields: run.fields });
+    const { model, underside, report, summary } = run.result;
+    res.json({
+      svg: renderSvg(model, { title: gen.title }),
+      ...(underside ? { undersideSvg: renderSvg(underside, { title: `${gen.title}: underside, mirrored` }) } : {}),
+      report,
+      summary,
+      params: run.params,
+    });
+  });
+}

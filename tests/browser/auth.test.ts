@@ -1,0 +1,105 @@
+// Accounts in the browser: a newcomer signs up, the demo owner invites them from the members
+// screen, the invite mail is read from the mail fake and its link followed, and the newcomer lands
+// on the shop's home as a viewer. Also: the wrong-password message. Screenshots at both sizes.
+import { afterEach, describe, expect, it } from 'vitest';
+import { uniqueEmail } from '../support/accounts';
+import { firstLink, Mailbox } from '../support/mailbox';
+import { PHONE, WIDE, baseUrl, openBrowser, screenshot } from './browser';
+
+type Browser = Awaited<ReturnType<typeof openBrowser>>;
+const DEMO_OWNER = { email: 'owner@larchmere.example', password: 'larchmere-owner' };
+
+function mailbox(): Mailbox {
+  const dir = process.env.E2E_MAIL_DIR;
+  if (!dir) throw new Error('E2E_MAIL_DIR not set: run through vitest.browser.config.mts');
+  return new Mailbox(dir);
+}
+
+const open: Browser[] = [];
+async function browserAt(viewport: { width: number; height: number }) {
+  const b = await openBrowser(viewport);
+  open.push(b);
+  return b.page;
+}
+afterEach(async () => {
+  await Promise.all(open.splice(0).map((b) => b.close()));
+});
+
+describe('accounts, shops and invites in the browser', () => {
+  it('sign up, get invited by the demo owner, follow the mailed link, and see the shop as a viewer', async () => {
+    const email = uniqueEmail('newcomer');
+    const newcomer = await browserAt(PHONE);
+    const owner = await browserAt(WIDE);
+
+    // The newcomer creates an account on a phone.
+    await newcomer.goto(baseUrl() + '/sign-up');
+    await newcomer.getByLabel('Your name', { exact: true }).fill('Linnea Brook');
+    await newcomer.getByLabel('E-mail', { exact: true }).fill(email);
+    await newcomer.getByLabel('Password', { exact: true }).fill('cabinet-scraper-88');
+    await screenshot(newcomer, 'sign-up-phone');
+    await newcomer.getByTestId('sign-up-submit').click();
+    await newcomer.getByTestId('no-shop-card').waitFor({ timeout: 30000 });
+
+    // The demo owner signs in on a wide screen and sends an invite from the members screen.
+    await owner.goto(baseUrl() + '/sign-in');
+    await owner.getByLabel('E-mail', { exact: true }).fill(DEMO_OWNER.email);
+    await owner.getByLabel('Password', { exact: true }).fill(DEMO_OWNER.password);
+    await owner.getByTestId('sign-in-submit').click();
+    await owner.getByTestId('current-shop-card').getByText('Larchmere Workshop').waitFor({ timeout: 30000 });
+    await owner.getByRole('link', { name: 'Members' }).first().click();
+    await owner.getByTestId('member-table').getByText('Maren Holt').waitFor({ timeout: 30000 });
+    const mails = mailbox();
+    const before = mails.countFor(email);
+    await owner.getByLabel('Invite by e-mail', { exact: true }).fill(email);
+    await owner.getByTestId('send-invite').click();
+    await owner.getByText(`Invite sent to ${email}`).waitFor();
+    await owner.getByText(email, { exact: true }).waitFor(); // listed under the open invites
+    await screenshot(owner, 'members-owner-wide');
+
+    // The invite arrives by mail; its link opens the invite screen for the newcomer.
+    const mail = await mails.latestFor(email, { after: before, timeoutMs: 10000 });
+    expect(mail.subject).toBe('Join Larchmere Workshop on Jigwright');
+    const link = firstLink(mail);
+    expect(link.startsWith(`${baseUrl()}/invite/`)).toBe(true);
+    await newcomer.goto(link);
+    await newcomer.getByText('You are invited to Larchmere Workshop as a viewer', { exact: false }).waitFor({ timeout: 30000 });
+    await screenshot(newcomer, 'invite-phone');
+    await newcomer.getByTestId('accept-invite').click();
+
+    // Joined: home shows the shop and the role.
+    await newcomer.waitForURL(baseUrl() + '/');
+    const card = newcomer.getByTestId('current-shop-card');
+    await card.getByText('Larchmere Workshop').waitFor({ timeout: 30000 });
+    expect(await newcomer.getByTestId('current-role').textContent()).toMatch(/^You are a viewer here/);
+    await screenshot(newcomer, 'home-viewer-phone');
+    await newcomer.setViewportSize(WIDE);
+    await card.getByText('Larchmere Workshop').waitFor();
+    await screenshot(newcomer, 'home-viewer-wide');
+
+    // As a viewer the members screen is a list on the phone, without the owner's controls.
+    await newcomer.setViewportSize(PHONE);
+    await newcomer.goto(baseUrl() + '/shop/members');
+    await newcomer.getByTestId('member-list').getByText('Linnea Brook (you)').waitFor({ timeout: 30000 });
+    expect(await newcomer.getByTestId('invite-form').count()).toBe(0);
+    await screenshot(newcomer, 'members-viewer-phone');
+  });
+
+  for (const [label, viewport] of [['phone', PHONE], ['wide', WIDE]] as const) {
+    it(`says so when the password is wrong (${label})`, async () => {
+      const page = await browserAt(viewport);
+      await page.goto(baseUrl() + '/sign-in');
+      await page.getByLabel('E-mail', { exact: true }).fill(DEMO_OWNER.email);
+      await page.getByLabel('Password', { exact: true }).fill('not-the-right-one');
+      await page.getByTestId('sign-in-submit').click();
+      await page.getByText('That e-mail and password do not match an account').waitFor({ timeout: 30000 });
+      expect(page.url()).toBe(baseUrl() + '/sign-in'); // still on the form, not signed in
+      await screenshot(page, `sign-in-wrong-password-${label}`);
+      // The short-password rule from the shared schema shows before anything is sent.
+      await page.goto(baseUrl() + '/sign-up');
+      await page.getByLabel('Password', { exact: true }).fill('short');
+      await page.getByTestId('sign-up-submit').click();
+      await page.getByText('Use at least 10 characters').waitFor();
+      await page.getByText('Enter your e-mail address').waitFor();
+    });
+  }
+});

@@ -1,0 +1,145 @@
+// Generator and calculator screens in the real web export: live preview, fit-report warnings with
+// their fields flagged, field-level errors, the units toggle with fractional inch input, and a
+// calculator result checked against an outside reference.
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { formatLength } from '../../shared/units';
+import { PHONE, WIDE, baseUrl, openBrowser, screenshot } from './browser';
+
+/** Opens a folded form section (phones start with only the first one open). */
+async function openSection(page: Page, title: string) {
+  const head = page.getByRole('button', { name: `${title} section` });
+  if ((await head.getAttribute('aria-expanded')) === 'false') await head.click();
+}
+
+async function textOf(page: Page, testId: string): Promise<string> {
+  return (await page.getByTestId(testId).first().innerText()).replace(/\s+/g, ' ');
+}
+
+describe('generator and calculator screens', () => {
+  for (const [label, viewport] of [['phone', PHONE], ['wide', WIDE]] as const) {
+    describe(label, () => {
+      let b: Awaited<ReturnType<typeof openBrowser>>;
+      const problems: string[] = [];
+      beforeAll(async () => {
+        b = await openBrowser(viewport);
+        b.page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`));
+        b.page.on('console', (m) => {
+          if (m.type() === 'error') problems.push(`console: ${m.text()}`);
+        });
+      });
+      afterAll(async () => b?.close());
+
+      it('charger insert: live preview, skin warning with flagged fields, bad input, inches with a fraction', async () => {
+        const { page } = b;
+        await page.goto(baseUrl() + '/generators');
+        await page.getByText('Charger insert plate').first().waitFor({ timeout: 30000 });
+        await page.getByText('Taper sled for legs').first().waitFor();
+        await screenshot(page, `generators-list-${label}`);
+
+        await page.getByRole('link', { name: 'Charger insert plate' }).click();
+        await page.waitForURL('**/generators/charger-insert');
+        await page.getByTestId('generator-drawing').waitFor({ timeout: 30000 });
+        // Start in millimetres whatever an earlier run left in this profile.
+        await page.getByRole('radio', { name: 'mm', exact: true }).click();
+
+        // Defaults: 76 mm device + 2 × (1.5 case + 1 clearance) = 81 mm pocket width, 165 mm length.
+        expect(await textOf(page, 'value-pocketWidth')).toContain('81 mm');
+        expect(await page.getByLabel('Feature sizes').innerText()).toContain('81 × 165 mm');
+        const pathsBefore = await page.getByTestId('generator-drawing').locator('svg path').evaluateAll((els) => els.map((e) => e.getAttribute('d')).join('|'));
+
+        await openSection(page, 'Device pocket');
+        const deviceWidth = page.getByLabel('Device width', { exact: true });
+        await deviceWidth.fill('70');
+        // The preview follows the form after a short pause: 70 + 5 = 75 mm.
+        await expect.poll(() => textOf(page, 'value-pocketWidth')).toContain('75 mm');
+        await expect.poll(() => page.getByLabel('Feature sizes').innerText()).toContain('75 × 165 mm');
+        const pathsAfter = await page.getByTestId('generator-drawing').locator('svg path').evaluateAll((els) => els.map((e) => e.getAttribute('d')).join('|'));
+        expect(pathsAfter).not.toBe(pathsBefore);
+
+        // Skin over the pad: without a maker's range the guideline is 3 mm (REFERENCES.md, wireless
+        // charging: "without one, warn above about 3 mm of skin", common practice).
+        await openSection(page, 'Charger pad');
+        expect(await page.getByTestId('warning-skin_too_thick').count()).toBe(0);
+        await page.getByLabel('Skin over the pad', { exact: true }).fill('4');
+        await page.getByTestId('warning-skin_too_thick').waitFor();
+        expect(await textOf(page, 'warning-skin_too_thick')).toContain('over 3 mm');
+        expect(await textOf(page, 'warning-skin_too_thick')).toContain('Skin over the pad');
+        // The field the warning concerns is flagged in the form.
+        expect(await textOf(page, 'field-Skin over the pad')).toContain('see report');
+
+        // With the maker's range the warning follows it: 4 mm is inside 0–5 mm, outside 0–3.5 mm.
+        await page.getByRole('switch', { name: 'Maker states a charging range' }).click();
+        await expect.poll(() => page.getByTestId('warning-skin_too_thick').count()).toBe(0);
+        await page.getByLabel('Rated range: maximum', { exact: true }).fill('3.5');
+        await page.getByTestId('warning-skin_too_thick').waitFor();
+        expect(await textOf(page, 'warning-skin_too_thick')).toContain('rated 3.5 mm');
+        await screenshot(page, `charger-insert-warning-${label}`);
+
+        // Bad input: a field-level message, and the report says it shows the last valid values.
+        await deviceWidth.fill('seventy');
+        await page.getByText('Enter a length like 12.5').waitFor();
+        await page.getByText('Showing the last valid values').first().waitFor();
+        await deviceWidth.fill('400');
+        await page.getByText('Device width must be at most 300 mm').waitFor();
+        await deviceWidth.fill('70');
+        await expect.poll(() => page.getByText('Showing the last valid values').count()).toBe(0);
+
+        // Inches: the field is rewritten (70 mm = 2.7559 in) and a fraction is read as typed.
+        await page.getByRole('radio', { name: 'inches' }).click();
+        await expect.poll(() => deviceWidth.inputValue()).toBe('2.7559');
+        await deviceWidth.fill('3-1/4');
+        // 3-1/4 in = 82.55 mm (1 in = 25.4 mm exactly, 16 CFR 500.19); pocket = 82.55 + 5 = 87.55 mm.
+        const expected = formatLength(87.55, 'in', { digits: 4 });
+        await expect.poll(() => textOf(page, 'value-pocketWidth')).toContain(expected);
+        // Out of range in inches is stated in inches.
+        await deviceWidth.fill('12');
+        await page.getByText(/Device width must be at most 11\.811" \(300 mm\)/).waitFor();
+        await deviceWidth.fill('3-1/4');
+        await expect.poll(() => textOf(page, 'value-pocketWidth')).toContain(expected);
+        await screenshot(page, `charger-insert-inches-${label}`);
+
+        // The unit choice is remembered on this browser.
+        await page.reload();
+        await page.getByTestId('generator-drawing').waitFor({ timeout: 30000 });
+        expect(await page.getByRole('radio', { name: 'inches' }).getAttribute('aria-checked')).toBe('true');
+        await page.getByRole('radio', { name: 'mm', exact: true }).click();
+      });
+
+      it('compound bevel: N = 4, splay 15° gives 43.08° blade tilt and 14.51° miter gauge', async () => {
+        const { page } = b;
+        await page.goto(baseUrl() + '/calculators');
+        await page.getByRole('link', { name: 'Compound miter for a splayed box' }).click();
+        await page.waitForURL('**/calculators/compound-bevel');
+        await page.getByTestId('value-bladeTilt').waitFor({ timeout: 30000 });
+        // Reference: REFERENCES.md, "Mitered box" — matches the compound-angle charts printed in
+        // table-saw manuals. N = 4: 20° → 41.64° / 18.88°; 15° → 43.08° / 14.51°.
+        await page.getByLabel('Sides', { exact: true }).fill('4');
+        await page.getByLabel('Splay from vertical', { exact: true }).fill('20');
+        await expect.poll(() => textOf(page, 'value-bladeTilt')).toContain('41.64°');
+        expect(await textOf(page, 'value-miterGauge')).toContain('18.88°');
+        await page.getByLabel('Splay from vertical', { exact: true }).fill('15');
+        await expect.poll(() => textOf(page, 'value-bladeTilt')).toContain('43.08°');
+        expect(await textOf(page, 'value-miterGauge')).toContain('14.51°');
+        await page.getByLabel('Sides', { exact: true }).fill('2');
+        await page.getByText('Sides must be at least 3').waitFor();
+        await page.getByLabel('Sides', { exact: true }).fill('4');
+        await expect.poll(() => page.getByText('Sides must be at least 3').count()).toBe(0);
+        await screenshot(page, `calculator-compound-bevel-${label}`);
+      });
+
+      it('wood movement: 200 mm flatsawn white oak, 6 → 12 % MC swells 4.38 mm, with its source', async () => {
+        const { page } = b;
+        await page.goto(baseUrl() + '/calculators/wood-movement');
+        await page.getByTestId('value-change').waitFor({ timeout: 30000 });
+        await page.getByRole('radio', { name: 'mm', exact: true }).click();
+        // Reference: USDA Wood Handbook FPL-GTR-190 Eq. 13-2, Table 13-5 (C_T 0.00365): 200 × 0.00365 × 6 = 4.380 mm.
+        await page.getByLabel('Width', { exact: true }).fill('200');
+        await expect.poll(() => textOf(page, 'value-change')).toContain('4.38 mm');
+        expect(await page.getByTestId('calculator-results').innerText()).toContain('FPL-GTR-190 (2010), Table 13-5');
+        await screenshot(page, `calculator-wood-movement-${label}`);
+        expect(problems).toEqual([]);
+      });
+    });
+  }
+});

@@ -1,0 +1,181 @@
+// The library in the browser, as the demo editor: start a design, upload a hand-written DXF through
+// the upload screen (a damaged file and a file without units first, to see both answered in
+// place), check what was read before saving, save r1, fork it into the second demo shop and see
+// the lineage both ways, then download the DXF and read it back with dxf-parser.
+// DXF facts from the Autodesk DXF Reference: HEADER $INSUNITS group 70, 4 = millimeters.
+import fs from 'node:fs';
+import DxfParserModule from 'dxf-parser';
+import type { BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { circle, dxfFile, rectLines } from '../support/dxf';
+import { PHONE, WIDE, baseUrl, openBrowser, screenshot } from './browser';
+
+const DxfParser = ((DxfParserModule as any).default ?? DxfParserModule) as new () => { parseSync(t: string): any };
+
+const EDITOR = { email: 'editor@larchmere.example', password: 'larchmere-editor' };
+const TITLE = `Shelf insert with pad recess ${Date.now().toString(36)}`;
+// The server names downloads `<title>-r<N>.<ext>`, the title folded to lower-case words and dashes.
+const FILE_BASE = TITLE.toLowerCase().replace(/\s+/g, '-');
+
+// A 240 × 160 mm plate with a 90 mm round recess: five closed contours' worth of entities.
+const GOOD_DXF = dxfFile([...rectLines(240, 160), circle(120, 80, 45)], 4);
+const NO_UNITS_DXF = dxfFile(rectLines(10, 6), null);
+const DAMAGED_DXF = GOOD_DXF.slice(0, 90);
+
+type Browser = Awaited<ReturnType<typeof openBrowser>>;
+
+async function signIn(context: BrowserContext, who = EDITOR) {
+  // context.request shares the browser's cookie jar, so the session cookie lands in the page too.
+  const r = await context.request.post(`${baseUrl()}/api/auth/sign-in`, { data: who });
+  expect(r.status(), await r.text()).toBe(200);
+  const me = await (await context.request.get(`${baseUrl()}/api/me`)).json();
+  return me as { shops: { id: string; name: string; role: string }[] };
+}
+
+async function useShop(page: Page, shopId: string) {
+  await page.goto(baseUrl() + '/help/safety');
+  await page.evaluate((id) => localStorage.setItem('jigwright.currentShop', id), shopId);
+}
+
+const dxfUpload = (name: string, text: string) => ({ name, mimeType: 'application/dxf', buffer: Buffer.from(text) });
+
+describe('library, revisions and forks in the browser', () => {
+  let b: Browser;
+  let shops: { id: string; name: string; role: string }[];
+  let designUrl = '';
+
+  beforeAll(async () => {
+    b = await openBrowser(WIDE);
+    shops = (await signIn(b.context)).shops;
+  });
+  afterAll(async () => b?.close());
+
+  it('creates a design, checks an uploaded DXF before saving, and shows r1 with its fit notes', async () => {
+    const { page } = b;
+    const larchmere = shops.find((s) => s.name === 'Larchmere Workshop')!;
+    expect(larchmere.role).toBe('editor');
+    await useShop(page, larchmere.id);
+
+    await page.goto(baseUrl() + '/library');
+    await page.getByText('Jigs, templates and inserts of').waitFor({ timeout: 30000 });
+    await page.getByTestId('new-design').click();
+    await page.waitForURL('**/designs/new');
+    await page.getByTestId('design-submit').click();
+    await page.getByText('Give the design a title').waitFor(); // the shared schema's message, in place
+    await page.getByTestId('design-title').fill(TITLE);
+    await page.getByTestId('design-tags').fill('charger, shelf');
+    await page.getByTestId('design-material').fill('Walnut ply');
+    await page.getByTestId('design-submit').click();
+    await page.waitForURL(/\/designs\/[0-9a-f-]{36}$/);
+    designUrl = page.url();
+    await page.getByText('No revision yet').waitFor();
+
+    await page.getByTestId('upload-revision').click();
+    await page.waitForURL('**/upload');
+    const input = page.getByTestId('file-input');
+
+    // A damaged file: a plain message, and nothing else moves on.
+    await input.setInputFiles(dxfUpload('broken.dxf', DAMAGED_DXF));
+    await page.getByText('Jigwright could not use this file').waitFor({ timeout: 30000 });
+    expect(await page.getByTestId('revision-save').getAttribute('aria-disabled')).toBe('true');
+
+    // A file without units: the screen asks, and the answer is sent with the file again.
+    await input.setInputFiles(dxfUpload('no-units.dxf', NO_UNITS_DXF));
+    await page.getByText('Which units is it drawn in?').waitFor({ timeout: 30000 });
+    await page.getByRole('radio', { name: 'Inches' }).click();
+    await page.getByTestId('units-confirm').click();
+    await page.getByTestId('inspect-result').getByText('inches, as you chose').waitFor({ timeout: 30000 });
+
+    // The real file: what was read is on screen before anything is saved.
+    await input.setInputFiles(dxfUpload('shelf-insert.dxf', GOOD_DXF));
+    const result = page.getByTestId('inspect-result');
+    await result.getByText('millimetres, from the file’s $INSUNITS header').waitFor({ timeout: 30000 });
+    await result.getByText('LINE 4, CIRCLE 1').waitFor();
+    await result.getByText('240 × 160 mm').waitFor();
+    await result.getByText('2 closed, 0 open').waitFor();
+
+    // Fit notes: a bad length is refused in place and the other boxes keep what was typed.
+    await page.getByTestId('include-device').click();
+    await page.getByTestId('device-width').fill('71.5');
+    await page.getByTestId('device-length').fill('abc');
+    await page.getByTestId('device-thickness').fill('8.2');
+    await page.getByTestId('clearance').fill('1.5');
+    await page.getByTestId('revision-save').click();
+    await page.getByText('Say what changed in this revision').waitFor();
+    await page.getByText('Device length must be a number (mm)').waitFor();
+    expect(await page.getByTestId('device-width').inputValue()).toBe('71.5');
+    await page.getByTestId('device-length').fill('148');
+    await page.getByTestId('revision-message').fill('First cut file from the shop drawing');
+    await screenshot(page, 'upload-checked-wide');
+    await page.getByTestId('revision-save').click();
+
+    await page.waitForURL(/\/designs\/[0-9a-f-]{36}\?r=1$/, { timeout: 30000 });
+    const shown = page.getByTestId('selected-revision');
+    await shown.getByText('r1', { exact: true }).waitFor({ timeout: 30000 });
+    await shown.getByText('First cut file from the shop drawing').waitFor();
+    await page.getByTestId('fit-notes').getByText('71.5 × 148 × 8.2 mm (W × L × T)').waitFor();
+    await page.getByTestId('fit-notes').getByText('1.5 mm per side').waitFor();
+    await page.getByTestId('revision-history').getByText('Uploaded file', { exact: false }).waitFor();
+    await page.getByTestId('activity-log').getByText('uploaded a DXF file drawn in mm').waitFor();
+    await page.getByText('Before you cut or wire anything').waitFor(); // cautions beside the downloads
+    await page.getByTestId('revision-drawing').waitFor();
+    await screenshot(page, 'design-wide');
+  });
+
+  it('forks r1 into Otterbrook Makerspace and shows the lineage on both designs', async () => {
+    const { page } = b;
+    await page.goto(designUrl);
+    await page.getByTestId('fork-open').click();
+    const panel = page.getByTestId('fork-panel');
+    await panel.getByRole('radio', { name: 'Otterbrook Makerspace' }).click();
+    await panel.getByTestId('fork-submit').click();
+    await page.waitForURL((u) => u.href !== designUrl && /\/designs\/[0-9a-f-]{36}$/.test(u.pathname), { timeout: 30000 });
+    const lineage = page.getByTestId('lineage');
+    await lineage.getByText('in Larchmere Workshop', { exact: false }).waitFor({ timeout: 30000 });
+    await lineage.getByRole('link', { name: TITLE }).waitFor();
+    await page.getByText('in Otterbrook Makerspace', { exact: false }).first().waitFor();
+    await page.getByTestId('selected-revision').getByText(`Forked from ${TITLE} r1 (Larchmere Workshop)`).waitFor();
+    await screenshot(page, 'design-fork-wide');
+
+    await lineage.getByRole('link', { name: TITLE }).click();
+    await page.waitForURL(designUrl);
+    await page.getByTestId('lineage').getByText('Forked 1 time').waitFor({ timeout: 30000 });
+    await page.getByTestId('lineage').getByText('in Otterbrook Makerspace, from r1', { exact: false }).waitFor();
+  });
+
+  it('downloads r1 as a DXF named <title>-r1.dxf that reads back in millimetres', async () => {
+    const { page } = b;
+    await page.goto(designUrl);
+    const link = page.getByTestId('download-dxf-mm');
+    await link.waitFor({ timeout: 30000 });
+    const [download] = await Promise.all([page.waitForEvent('download'), link.click()]);
+    expect(download.suggestedFilename()).toBe(`${FILE_BASE}-r1.dxf`);
+    const text = fs.readFileSync((await download.path())!, 'utf8');
+    const parsed = new DxfParser().parseSync(text);
+    expect(parsed.header.$INSUNITS).toBe(4);
+    expect(parsed.entities.length).toBeGreaterThanOrEqual(2);
+  });
+
+  it('lists the design in the library: a table on wide screens, cards on a phone', async () => {
+    const { page } = b;
+    await page.goto(baseUrl() + '/library');
+    await page.getByRole('table', { name: 'Designs' }).getByRole('link', { name: TITLE }).waitFor({ timeout: 30000 });
+    // The search box narrows the list after a pause in typing.
+    await page.getByTestId('library-search').fill('shelf pad');
+    await page.waitForURL(/q=shelf/);
+    await page.getByRole('table', { name: 'Designs' }).getByRole('link', { name: TITLE }).waitFor();
+    await page.getByTestId('library-search').fill('');
+    await page.waitForURL((u) => !u.search.includes('q='));
+    await page.getByRole('link', { name: TITLE }).waitFor();
+    await screenshot(page, 'library-wide');
+
+    await page.setViewportSize(PHONE);
+    await page.getByRole('list', { name: 'Designs' }).getByRole('link', { name: `Open ${TITLE}` }).waitFor({ timeout: 30000 });
+    await screenshot(page, 'library-phone');
+    await page.getByRole('link', { name: `Open ${TITLE}` }).click();
+    await page.getByTestId('selected-revision').waitFor({ timeout: 30000 });
+    await page.getByTestId('fit-notes').waitFor();
+    await screenshot(page, 'design-phone');
+    await page.setViewportSize(WIDE);
+  });
+});
