@@ -32,7 +32,7 @@ function ShopCatalog({ shop }: { shop: CurrentShop }) {
     <View style={{ gap: space.lg }}>
       <View style={[theme.row, { justifyContent: 'space-between', flexWrap: 'wrap', gap: space.md }]}>
         <Text style={[theme.body, { flexShrink: 1 }]}>
-          The devices <Text style={theme.label}>{shop.shopName}</Text> builds pockets for and the charger pads it builds recesses for. Fit notes and generators fill in from here.
+          The devices <Text style={{ fontFamily: fonts.bold }}>{shop.shopName}</Text> builds pockets for and the charger pads it builds recesses for. Fit notes and generators fill in from here.
         </Text>
         <Segmented label="Units" options={[{ value: 'mm', label: 'mm' }, { value: 'in', label: 'inches' }]} value={units} onChange={setUnits} />
       </View>

@@ -6,7 +6,7 @@ import { AppFrame } from '@/components/layout/AppFrame';
 import { Notice } from '@/components/library/controls';
 import { WithCurrentShop } from '@/components/library/WithCurrentShop';
 import { canEdit, type CurrentShop } from '@/components/library/shopAccess';
-import { space, theme } from '@/components/ui';
+import { fonts, space, theme } from '@/components/ui';
 
 export default function NewDesignScreen() {
   return (
@@ -24,7 +24,7 @@ function NewDesign({ shop }: { shop: CurrentShop }) {
   return (
     <View style={[theme.card, { gap: space.lg, maxWidth: 720 }]}>
       <Text style={theme.body}>
-        The design goes into the library of <Text style={theme.label}>{shop.shopName}</Text>. Its cut files come next, as numbered revisions.
+        The design goes into the library of <Text style={{ fontFamily: fonts.bold }}>{shop.shopName}</Text>. Its cut files come next, as numbered revisions.
       </Text>
       <DesignForm
         mode="create"

@@ -7,7 +7,7 @@ import { activeFilterCount, LibraryFilters } from '@/components/library/LibraryF
 import { useLibraryParams } from '@/components/library/libraryParams';
 import { WithCurrentShop } from '@/components/library/WithCurrentShop';
 import { canEdit, type CurrentShop } from '@/components/library/shopAccess';
-import { space, theme, useBreakpoint } from '@/components/ui';
+import { fonts, space, theme, useBreakpoint } from '@/components/ui';
 
 export default function LibraryScreen() {
   return (
@@ -28,7 +28,7 @@ function ShopLibrary({ shop }: { shop: CurrentShop }) {
     <View style={{ gap: space.lg }}>
       <View style={[theme.row, { justifyContent: 'space-between', flexWrap: 'wrap', gap: space.md }]}>
         <Text style={theme.body}>
-          Jigs, templates and inserts of <Text style={theme.label}>{shop.shopName}</Text>
+          Jigs, templates and inserts of <Text style={{ fontFamily: fonts.bold }}>{shop.shopName}</Text>
         </Text>
         <View style={[theme.row, { flexWrap: 'wrap' }]}>
           <LinkButton href="/catalog" tone="secondary" label="Devices and charger pads" />

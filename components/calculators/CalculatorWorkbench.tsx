@@ -42,6 +42,8 @@ export function CalculatorWorkbench({ calculator, initialParams }: { calculator:
   const fieldLabels = useMemo(() => Object.fromEntries(calculator.params.map((d) => [d.name, d.label])), [calculator]);
   const flagged = useMemo(() => flaggedFields(current.ok ? current.result.warnings : []), [current]);
   const cautions = cautionsForCalculator(calculator.id);
+  // Angles and counts only: no unit to choose.
+  const hasLengths = calculator.params.some((d) => d.type === 'number' && d.unit === 'mm');
   const source = CALCULATOR_SOURCES[calculator.id];
 
   const form = (
@@ -83,7 +85,7 @@ export function CalculatorWorkbench({ calculator, initialParams }: { calculator:
 
   return (
     <View style={{ gap: space.md }}>
-      <UnitsToggle units={units} onChange={setUnits} />
+      {hasLengths ? <UnitsToggle units={units} onChange={setUnits} /> : null}
       {isWide ? (
         <View style={styles.columns}>
           <View style={styles.formColumn}>{form}</View>

@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { get, useController, useForm, useFormState, type Control, type FieldErrors, type Resolver, type ResolverOptions } from 'react-hook-form';
-import { Pressable, StyleSheet, Switch, Text, TextInput, View } from 'react-native';
+import { Pressable, StyleSheet, Switch, Text, TextInput, View, type TextStyle } from 'react-native';
 import type { z } from 'zod';
 import { defaultParams, paramsSchema, type BoolParam, type ChoiceParam, type NumberParam, type ParamDecl, type ParamValues } from '../../shared/params';
 import { colors, fonts, radius, space, theme } from '../ui';
@@ -170,7 +170,9 @@ export function ParamForm({ decls, initialValues, units, onChange, onValidityCha
     if (externalErrors?.[name] && !editedSinceExternal[name]) setEdited((s) => ({ ...s, [name]: true }));
   };
 
-  const sections = useMemo(() => groupDecls(decls, onlyFields), [decls, onlyFields]);
+  // A field outside `onlyFields` still shows when it carries a message: it cannot be fixed unseen.
+  const visible = useMemo(() => (onlyFields ? [...onlyFields, ...Object.keys(externalErrors ?? {})] : undefined), [onlyFields, externalErrors]);
+  const sections = useMemo(() => groupDecls(decls, visible), [decls, visible]);
   return (
     <View style={styles.form} role="form" aria-label="Parameters">
       {sections.map((section, si) => (
@@ -288,15 +290,17 @@ function NumberField({ decl, units, control, name, external, flag, disabled, onE
   const error = fieldState.error?.message ?? external;
   const suffix = unitSuffix(decl, units);
   const inchText = isLength(decl) && units === 'in';
+  const [focused, setFocused] = useState(false);
   return (
     <FieldFrame
       label={decl.label}
       flag={flag}
       help={decl.help}
-      range={`Range ${rangeText(decl, units)}${inchText ? ' · fractions like 3/4 or 1-1/2 are fine' : ''}`}
+      range={`Range ${rangeText(decl, units)}`}
       error={error}
     >
-      <View style={[styles.inputRow, error ? styles.inputInvalid : null]}>
+      {/* Focus shows on the whole box (value and unit), not as the browser's ring round the text alone. */}
+      <View style={[styles.inputRow, focused && styles.inputFocused, error ? styles.inputInvalid : null]}>
         <TextInput
           accessibilityLabel={decl.label}
           aria-invalid={error ? true : undefined}
@@ -305,7 +309,11 @@ function NumberField({ decl, units, control, name, external, flag, disabled, onE
             field.onChange(t);
             onEdit();
           }}
-          onBlur={field.onBlur}
+          onFocus={() => setFocused(true)}
+          onBlur={() => {
+            setFocused(false);
+            field.onBlur();
+          }}
           editable={!disabled}
           // Fractions need "/" and "-", which a decimal keypad lacks.
           inputMode={inchText ? 'text' : decl.unit === 'count' ? 'numeric' : 'decimal'}
@@ -360,6 +368,10 @@ function BoolField({ decl, control, name, external, flag, disabled, onEdit }: Fi
   );
 }
 
+// The box around value and unit shows focus instead (see NumberField). RN's types list no 'none'
+// outline style; react-native-web passes it through, and a zero width alone does not hide the ring.
+const NO_BROWSER_RING = { outlineStyle: 'none' } as unknown as TextStyle;
+
 const styles = StyleSheet.create({
   form: { gap: space.lg },
   section: { gap: space.sm },
@@ -374,8 +386,10 @@ const styles = StyleSheet.create({
   inlineControl: { marginLeft: 'auto' },
   flag: { fontFamily: fonts.medium, fontSize: 11, lineHeight: 16, borderWidth: 1, borderRadius: radius.sm, paddingHorizontal: 6 },
   inputRow: { flexDirection: 'row', alignItems: 'center', borderWidth: 1, borderColor: colors.line, borderRadius: radius.sm, backgroundColor: colors.surface, maxWidth: 260 },
-  inputInvalid: { borderColor: colors.danger, borderWidth: 2 },
-  input: { flex: 1, minWidth: 0, fontFamily: fonts.mono, fontSize: 15, color: colors.ink, paddingHorizontal: space.sm, paddingVertical: 8 },
+  // Same width in every state, so focusing or flagging a field never shifts the layout.
+  inputFocused: { borderColor: colors.pine, boxShadow: `0 0 0 1px ${colors.pine}` },
+  inputInvalid: { borderColor: colors.danger, boxShadow: `0 0 0 1px ${colors.danger}` },
+  input: { flex: 1, minWidth: 0, fontFamily: fonts.mono, fontSize: 15, color: colors.ink, paddingHorizontal: space.sm, paddingVertical: 8, ...NO_BROWSER_RING },
   suffix: { fontFamily: fonts.mono, fontSize: 13, color: colors.inkMuted, paddingHorizontal: space.sm },
   range: { fontFamily: fonts.mono, fontSize: 12 },
   error: { fontFamily: fonts.medium, fontSize: 13, lineHeight: 18, color: colors.danger },

@@ -14,6 +14,7 @@ export function UnitsToggle({ units, onChange }: { units: DisplayUnits; onChange
     <View style={[theme.row, { flexWrap: 'wrap' }]}>
       <Text style={theme.label}>Lengths in</Text>
       <Segmented label="Length units" options={OPTIONS} value={units} onChange={onChange} />
+      {units === 'in' ? <Text style={theme.muted}>Type decimals or fractions: 0.75, 3/4, 1-1/2.</Text> : null}
     </View>
   );
 }

@@ -17,7 +17,7 @@ export function parseParamText(d: NumberParam, text: string, units: DisplayUnits
     return r.ok ? { ok: true, value: r.mm } : r;
   }
   const s = text.trim();
-  if (!s) return { ok: false, message: `Enter ${d.label.toLowerCase()}` };
+  if (!s) return { ok: false, message: d.unit === 'count' ? 'Enter a whole number' : 'Enter a number' };
   if (!PLAIN_NUMBER.test(s)) return { ok: false, message: d.unit === 'count' ? 'Enter a whole number, like 4' : 'Enter a number, like 15 or 7.5' };
   return { ok: true, value: Number(s.replace('−', '-')) };
 }

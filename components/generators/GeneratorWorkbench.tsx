@@ -9,11 +9,17 @@ import { SafetyNotes } from '../SafetyNotes';
 import { ApiError } from '../api/client';
 import { Drawing } from '../drawing/Drawing';
 import { ParamForm } from '../forms/ParamForm';
+import { Segmented } from '../forms/Segmented';
 import { UnitsToggle } from '../forms/UnitsToggle';
 import { useDisplayUnits } from '../forms/useDisplayUnits';
 import { colors, fonts, radius, space, theme, useBreakpoint } from '../ui';
 import { FitReport, flaggedFields } from './FitReport';
 import { cautionsForGenerator } from './cautions';
+
+const FACE_OPTIONS: { value: 'top' | 'underside'; label: string }[] = [
+  { value: 'top', label: 'Top' },
+  { value: 'underside', label: 'Underside' },
+];
 
 /** Typing pauses this long before the preview is recomputed. */
 export const PREVIEW_DEBOUNCE_MS = 250;
@@ -76,8 +82,11 @@ export function GeneratorWorkbench({ generator, initialParams, onlyFields, onSav
   };
 
   const shown = lastGood;
-  const paths = useMemo(() => (shown ? modelToLayerPaths(shown.result.model) : []), [shown]);
-  const frame = useMemo(() => (shown ? previewFrame(shown.result.model) : { width: 0, height: 0 }), [shown]);
+  // Underside work is also given mirrored, as it is cut after turning the part over.
+  const [face, setFace] = useState<'top' | 'underside'>('top');
+  const viewModel = shown ? (face === 'underside' && shown.result.underside ? shown.result.underside : shown.result.model) : null;
+  const paths = useMemo(() => (viewModel ? modelToLayerPaths(viewModel) : []), [viewModel]);
+  const frame = useMemo(() => (viewModel ? previewFrame(viewModel) : { width: 0, height: 0 }), [viewModel]);
   const flagged = useMemo(() => flaggedFields(shown && current.ok ? shown.result.report.warnings : []), [shown, current]);
   const fieldLabels = useMemo(() => Object.fromEntries(generator.params.map((d) => [d.name, d.label])), [generator]);
   const stale = !formValid || !current.ok;
@@ -101,8 +110,15 @@ export function GeneratorWorkbench({ generator, initialParams, onlyFields, onSav
         <Text role="heading" style={theme.heading}>
           Preview
         </Text>
-        <Text style={theme.muted}>as seen from the top</Text>
+        {shown?.result.underside ? (
+          <Segmented label="Face shown" options={FACE_OPTIONS} value={face} onChange={setFace} />
+        ) : (
+          <Text style={theme.muted}>as seen from the top</Text>
+        )}
       </View>
+      {face === 'underside' && shown?.result.underside ? (
+        <Text style={theme.muted}>Underside, mirrored: as it lies on the machine after turning the part over about its long axis on the alignment marks.</Text>
+      ) : null}
       {!current.ok ? (
         <Text style={styles.problem} testID="preview-problem">
           {current.message}
@@ -114,8 +130,8 @@ export function GeneratorWorkbench({ generator, initialParams, onlyFields, onSav
           paths={paths}
           extents={frame}
           units={units}
-          features={shown.result.summary.features}
-          maxHeight={isDesktop ? columnHeight - 190 : isWide ? Math.round(columnHeight * 0.42) : 340}
+          features={face === 'top' ? shown.result.summary.features : undefined}
+          maxHeight={isDesktop ? columnHeight - 240 : isWide ? Math.round(columnHeight * 0.42) : 340}
           accessibilityLabel={`Preview of ${generator.title}, overall ${frameText(frame, units)}`}
         />
       ) : (

@@ -69,53 +69,55 @@ export function LibraryFilters({ filters, onChange, compact }: { filters: Filter
       ) : null}
       {open || !compact ? (
         <View style={styles.filters}>
-          <View style={styles.group}>
-            <Text style={theme.label}>Kind</Text>
-            <Segmented
-              label="Kind"
-              options={[{ value: '', label: 'All' }, ...DESIGN_KINDS.map((k) => ({ value: k, label: KIND_LABEL[k] }))]}
-              value={filters.kind ?? ''}
-              onChange={(v) => onChange({ kind: (v || undefined) as Filters['kind'] })}
-            />
-          </View>
-          <View style={styles.group}>
-            <Text style={theme.label}>Status of the newest revision</Text>
-            <Segmented
-              label="Status"
-              options={[{ value: '', label: 'Any' }, ...REVISION_STATUSES.map((s) => ({ value: s, label: STATUS_LABEL[s] }))]}
-              value={filters.status ?? ''}
-              onChange={(v) => onChange({ status: (v || undefined) as Filters['status'] })}
-            />
-          </View>
-          <View style={styles.pair}>
-            <TextField label="Material" value={material} onChangeText={setMaterial} placeholder="e.g. walnut ply" width={compact ? '100%' : 220} testID="library-material" />
-            <TextField label="Tag" value={tag} onChangeText={setTag} placeholder="e.g. charger" width={compact ? '100%' : 220} autoCapitalize="none" testID="library-tag" />
-          </View>
-          <View style={styles.group}>
-            <Text style={theme.label}>Sort by</Text>
-            <View style={[theme.row, { flexWrap: 'wrap' }]}>
+          <View style={styles.line}>
+            <View style={styles.group}>
+              <Text style={theme.label}>Kind</Text>
               <Segmented
-                label="Sort by"
-                options={LIBRARY_SORTS.map((s) => ({ value: s, label: SORT_LABEL[s] }))}
-                value={sort}
-                onChange={(s) => onChange({ sort: s, dir: undefined })}
+                label="Kind"
+                options={[{ value: '', label: 'All' }, ...DESIGN_KINDS.map((k) => ({ value: k, label: KIND_LABEL[k] }))]}
+                value={filters.kind ?? ''}
+                onChange={(v) => onChange({ kind: (v || undefined) as Filters['kind'] })}
               />
+            </View>
+            <View style={styles.group}>
+              <Text style={theme.label}>Status of the newest revision</Text>
               <Segmented
-                label="Order"
-                options={
-                  sort === 'title'
-                    ? [
-                        { value: 'asc', label: 'A → Z' },
-                        { value: 'desc', label: 'Z → A' },
-                      ]
-                    : [
-                        { value: 'desc', label: 'Newest first' },
-                        { value: 'asc', label: 'Oldest first' },
-                      ]
-                }
-                value={dir}
-                onChange={(d) => onChange({ dir: d === defaultDir(sort) ? undefined : (d as Filters['dir']) })}
+                label="Status"
+                options={[{ value: '', label: 'Any' }, ...REVISION_STATUSES.map((s) => ({ value: s, label: STATUS_LABEL[s] }))]}
+                value={filters.status ?? ''}
+                onChange={(v) => onChange({ status: (v || undefined) as Filters['status'] })}
               />
+            </View>
+          </View>
+          <View style={styles.line}>
+            <TextField label="Material" value={material} onChangeText={setMaterial} placeholder="e.g. walnut ply" width={compact ? '100%' : 200} testID="library-material" />
+            <TextField label="Tag" value={tag} onChangeText={setTag} placeholder="e.g. charger" width={compact ? '100%' : 200} autoCapitalize="none" testID="library-tag" />
+            <View style={styles.group}>
+              <Text style={theme.label}>Sort by</Text>
+              <View style={[theme.row, { flexWrap: 'wrap' }]}>
+                <Segmented
+                  label="Sort by"
+                  options={LIBRARY_SORTS.map((s) => ({ value: s, label: SORT_LABEL[s] }))}
+                  value={sort}
+                  onChange={(s) => onChange({ sort: s, dir: undefined })}
+                />
+                <Segmented
+                  label="Order"
+                  options={
+                    sort === 'title'
+                      ? [
+                          { value: 'asc', label: 'A → Z' },
+                          { value: 'desc', label: 'Z → A' },
+                        ]
+                      : [
+                          { value: 'desc', label: 'Newest first' },
+                          { value: 'asc', label: 'Oldest first' },
+                        ]
+                  }
+                  value={dir}
+                  onChange={(d) => onChange({ dir: d === defaultDir(sort) ? undefined : (d as Filters['dir']) })}
+                />
+              </View>
             </View>
           </View>
           {count || filters.q ? (
@@ -135,5 +137,6 @@ const styles = StyleSheet.create({
   wrap: { gap: space.md },
   filters: { gap: space.md },
   group: { gap: 4 },
-  pair: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
+  // Groups sit side by side while they fit and wrap under each other on a phone.
+  line: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg, alignItems: 'flex-end' },
 });

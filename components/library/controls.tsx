@@ -48,8 +48,9 @@ export function Button({
 /** A link drawn as a button, for moves to another screen. */
 export function LinkButton({ href, label, tone = 'primary', testID }: { href: string; label: string; tone?: ButtonTone; testID?: string }) {
   return (
+    // Link's asChild drops a style function, so this button's style is a plain array (no hover shade).
     <Link href={href as never} asChild>
-      <Pressable accessibilityRole="link" testID={testID} style={({ hovered }: { hovered?: boolean }) => [styles.button, toneStyle[tone], hovered && hoverStyle[tone]]}>
+      <Pressable accessibilityRole="link" testID={testID} style={[styles.button, toneStyle[tone]]}>
         <Text style={[styles.buttonText, toneText[tone]]}>{label}</Text>
       </Pressable>
     </Link>
@@ -68,7 +69,7 @@ export interface FieldProps extends Omit<TextInputProps, 'style'> {
 /** A labelled text box with its hint and its error under it. */
 export const TextField = forwardRef<TextInput, FieldProps>(function TextField({ label, error, hint, suffix, width, multiline, ...input }, ref) {
   return (
-    <View style={[styles.field, width !== undefined && { width }]}>
+    <View style={[styles.field, width !== undefined && { width, flexGrow: 0 }]}>
       <Text style={theme.label}>{label}</Text>
       <View style={theme.row}>
         <TextInput
@@ -98,7 +99,7 @@ export function FieldError({ message }: { message: string }) {
 export function Checkbox({ label, checked, onChange, testID }: { label: string; checked: boolean; onChange: (v: boolean) => void; testID?: string }) {
   return (
     <Pressable accessibilityRole="checkbox" aria-checked={checked} aria-label={label} onPress={() => onChange(!checked)} style={styles.check} testID={testID}>
-      <View style={[styles.box, checked && styles.boxOn]}>{checked ? <Text style={styles.tick}>✓</Text> : null}</View>
+      <View style={[styles.box, checked && styles.boxOn]}>{checked ? <View style={styles.tick} /> : null}</View>
       <Text style={theme.body}>{label}</Text>
     </Pressable>
   );
@@ -231,7 +232,8 @@ const styles = StyleSheet.create({
   check: { flexDirection: 'row', alignItems: 'center', gap: space.sm, minHeight: 32, alignSelf: 'flex-start' },
   box: { width: 20, height: 20, borderRadius: 3, borderWidth: 2, borderColor: colors.pine, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.surface },
   boxOn: { backgroundColor: colors.pine },
-  tick: { color: colors.paper, fontFamily: fonts.bold, fontSize: 13, lineHeight: 14 },
+  // A short L turned 45°: a tick that does not depend on the font having one.
+  tick: { width: 6, height: 11, borderRightWidth: 2, borderBottomWidth: 2, borderColor: colors.paper, transform: [{ rotate: '45deg' }], marginTop: -2 },
   notice: { borderRadius: radius.sm, padding: space.md, gap: space.sm, borderLeftWidth: 4 },
   noticeError: { backgroundColor: colors.dangerSoft, borderLeftColor: colors.danger },
   noticeInfo: { backgroundColor: colors.sunk, borderLeftColor: colors.inkMuted },

@@ -14,6 +14,8 @@ import { MM_PER_INCH, type LengthUnit } from '../../shared/units';
 const LAYER_COLOR: Record<LayerName, number> = { outline: 7, pocket: 3, recess: 30, channel: 6, relief: 1, marks: 8, guide: 9 };
 
 const INSUNITS: Record<LengthUnit, number> = { mm: 4, in: 1 };
+/** Numbers are written rounded to this step of the file's unit (makerjs' default, 1e-7, is coarser than needed to keep mm ÷ 25.4 exact to the digits shown). */
+export const DXF_ACCURACY = 1e-9;
 const MEASUREMENT: Record<LengthUnit, number> = { mm: 1, in: 0 };
 
 /** The model (millimetres) as DXF text with coordinates in `units`. */
@@ -29,7 +31,7 @@ export function modelToDxf(model: makerjs.IModel, units: LengthUnit): string {
 
   const layerOptions: Record<string, makerjs.exporter.IDXFLayerOptions> = {};
   for (const id of LAYERS) layerOptions[id] = { color: LAYER_COLOR[id] };
-  const body = makerjs.exporter.toDXF(copy, { units: copy.units, layerOptions });
+  const body = makerjs.exporter.toDXF(copy, { units: copy.units, layerOptions, accuracy: DXF_ACCURACY });
 
   const start = '0\nSECTION\n2\nHEADER\n';
   const end = body.indexOf('\n0\nENDSEC\n');
@@ -41,7 +43,7 @@ function headerSection(model: makerjs.IModel, units: LengthUnit): string {
   const lines = ['0', 'SECTION', '2', 'HEADER', '9', '$ACADVER', '1', 'AC1009', '9', '$INSUNITS', '70', String(INSUNITS[units]), '9', '$MEASUREMENT', '70', String(MEASUREMENT[units])];
   const ext = makerjs.measure.modelExtents(model);
   if (ext) {
-    const r = (v: number) => String(makerjs.round(v));
+    const r = (v: number) => String(makerjs.round(v, DXF_ACCURACY));
     lines.push('9', '$EXTMIN', '10', r(ext.low[0]), '20', r(ext.low[1]), '30', '0');
     lines.push('9', '$EXTMAX', '10', r(ext.high[0]), '20', r(ext.high[1]), '30', '0');
   }

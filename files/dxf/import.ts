@@ -1,17 +1,15 @@
-// ASCII DXF → the internal geometry (a flat makerjs model in millimetres). Structure is checked by
-// scan.ts, dxf-parser reads sections, header, blocks and group values, and every entity reaches us
-// as its raw group list (our handlers replace dxf-parser's per-entity ones) so each is read exactly
-// as the Autodesk DXF Reference describes it, including OCS mirroring and rational splines.
-import DxfParserModule from 'dxf-parser';
+// ASCII DXF → the internal geometry (a flat makerjs model in millimetres). reader.ts checks the
+// structure and hands over every entity as its group list; here each is read as the Autodesk DXF
+// Reference describes it, including OCS mirroring, bulges, rational splines and block inserts.
 import makerjs from 'makerjs';
 import type { LayerName } from '../../shared/schemas/geometry';
 import { MM_PER_INCH, type LengthUnit } from '../../shared/units';
 import { FileRejected, UnitsNeeded } from '../errors';
 import { FALLBACK_LAYER, matchLayer } from '../layers';
-import { type Affine, compose, IDENTITY, rotationDeg, scaling, translation } from '../model/affine';
+import { type Affine, compose, rotationDeg, scaling, translation } from '../model/affine';
 import { type CollectorLimits, DEFAULT_LIMITS, PathCollector } from '../model/collector';
 import type { ImportResult, SourceUnits } from '../types';
-import { scanDxf } from './scan';
+import { type RawBlock, type RawEntity, readDxf } from './reader';
 import { type SplineData, splineBreaks, splinePoint, splineProblem } from './spline';
 
 export interface DxfImportOptions {
@@ -42,47 +40,17 @@ const ANNOTATION = new Set(['TEXT', 'MTEXT', 'DIMENSION', 'HATCH', 'ATTDEF', 'AT
 const SUB_ENTITIES = new Set(['VERTEX', 'SEQEND', 'ATTRIB']);
 const MIRROR_X: Affine = [-1, 0, 0, 1, 0, 0];
 
-type GroupValue = string | number | boolean;
-interface RawEntity {
-  type: string;
-  codes: number[];
-  values: GroupValue[];
-}
-interface RawBlock {
-  name?: string;
-  position?: { x: number; y: number };
-  entities?: RawEntity[];
-}
-
-/** dxf-parser is UMD: the constructor is the default export under some loaders, the module under others. */
-const DxfParser = ((DxfParserModule as unknown as { default?: typeof DxfParserModule }).default ?? DxfParserModule) as typeof DxfParserModule;
-
-/** Keeps an entity's groups in file order; we read them ourselves. */
-function rawHandler(name: string) {
-  return class {
-    ForEntityName = name;
-    parseEntity(scanner: { next(): { code: number; value: GroupValue } }, curr: { value: GroupValue }): RawEntity {
-      const codes: number[] = [];
-      const values: GroupValue[] = [];
-      let g = scanner.next();
-      while (g.code !== 0) {
-        codes.push(g.code);
-        values.push(g.value);
-        g = scanner.next();
-      }
-      return { type: String(curr.value), codes, values };
-    }
-  };
-}
+type GroupValue = string | number;
 
 export function importDxf(text: string, opts: DxfImportOptions = {}): ImportResult {
+  if (opts.units !== undefined && !(opts.units in USER_UNITS)) throw new TypeError(`importDxf: units must be 'mm' or 'in', not ${String(opts.units)}`);
   const maxEntities = opts.maxEntities ?? DEFAULT_MAX_ENTITIES;
-  const scan = scanDxf(text, maxEntities);
+  const doc = readDxf(text, maxEntities);
   const warnings: string[] = [];
 
   let unit: { units: SourceUnits; mm: number; name: string } | undefined;
   let unitsFrom: ImportResult['unitsFrom'] = 'header';
-  const code = scan.header.insunits;
+  const code = doc.header.insunits;
   if (code !== undefined && code !== 0) {
     unit = INSUNITS[code];
     if (!unit) {
@@ -99,27 +67,16 @@ export function importDxf(text: string, opts: DxfImportOptions = {}): ImportResu
     unitsFrom = 'user';
   }
 
-  let dxf: { entities?: RawEntity[]; blocks?: Record<string, RawBlock> } | null;
-  try {
-    const parser = new DxfParser();
-    for (const name of scan.entityNames) parser.registerEntityHandler(rawHandler(name) as never);
-    dxf = parser.parseSync(scan.text) as unknown as typeof dxf;
-  } catch (e) {
-    const reason = e instanceof Error ? e.message : String(e);
-    throw new FileRejected('damaged_dxf', `The DXF file could not be read (${reason.slice(0, 160)}). Export it again as an ASCII DXF.`);
-  }
-  if (!dxf) throw new FileRejected('damaged_dxf', 'The DXF file could not be read. Export it again as an ASCII DXF.');
-
   // Without units we still read everything (so other problems surface first), in file units.
-  const reader = new DxfReader(dxf.blocks ?? {}, { ...DEFAULT_LIMITS, ...opts.limits });
-  const entities = dxf.entities ?? [];
+  const reader = new DxfReader(doc.blocks, { ...DEFAULT_LIMITS, ...opts.limits });
+  const entities = doc.entities;
   reader.drawList(entities, scaling(unit ? unit.mm : 1), undefined, 0, []);
   const model = reader.finish();
 
   if (!unit) {
     const ext = makerjs.measure.modelExtents(model);
     const extents = ext ? { width: ext.high[0] - ext.low[0], height: ext.high[1] - ext.low[1] } : undefined;
-    const suggested = scan.header.measurement === 1 ? 'mm' : scan.header.measurement === 0 ? 'in' : undefined;
+    const suggested = doc.header.measurement === 1 ? 'mm' : doc.header.measurement === 0 ? 'in' : undefined;
     const size = extents ? ` The drawing measures ${fmt(extents.width)} × ${fmt(extents.height)} in its own units.` : '';
     throw new UnitsNeeded(`This DXF file does not say which units it is drawn in ($INSUNITS is ${code === 0 ? '0, unitless' : 'missing'}). Choose millimetres or inches.${size}`, extents, suggested);
   }
@@ -129,16 +86,16 @@ export function importDxf(text: string, opts: DxfImportOptions = {}): ImportResu
   return { model, sourceUnits: unit.units, unitsFrom, entityCounts, warnings: [...warnings, ...reader.warnings()] };
 }
 
-/** Names the entity being read, for messages ("LINE #12 (handle 2A) in block "JIG""). */
+/** Names the entity being read, for messages: the LINE at line 120 (handle 2A) in block "JIG". */
 class EntityRef {
   type = '';
-  index = 0;
+  line = 0;
   handle: GroupValue | undefined;
   block: string | undefined;
   toString(): string {
     const handle = this.handle !== undefined ? ` (handle ${String(this.handle)})` : '';
     const block = this.block ? ` in block "${this.block}"` : '';
-    return `${this.type} #${this.index + 1}${handle}${block}`;
+    return `The ${this.type} at line ${this.line}${handle}${block}`;
   }
 }
 
@@ -157,7 +114,7 @@ class DxfReader {
   private sawZ = false;
 
   constructor(
-    private readonly blocks: Record<string, RawBlock>,
+    private readonly blocks: Map<string, RawBlock>,
     limits: CollectorLimits,
   ) {
     this.out = new PathCollector(limits);
@@ -170,7 +127,7 @@ class DxfReader {
       const e = list[i];
       const ref = this.ref;
       ref.type = e.type;
-      ref.index = i;
+      ref.line = e.line;
       ref.block = block;
       ref.handle = value(e, 5);
       if (e.type === 'SEQEND' || e.type === 'VERTEX') continue; // consumed by POLYLINE, or the end of an INSERT's attributes
@@ -276,23 +233,28 @@ class DxfReader {
 
   /** The entity's object coordinate system as a transform: identity, or x mirrored for extrusion (0,0,−1). */
   private ocs(e: RawEntity, m: Affine): Affine {
+    // Arbitrary axis algorithm (DXF Reference, "Object Coordinate Systems"): for N = (0, 0, −1) the OCS x axis is −X.
+    return this.extrusionSign(e) < 0 ? compose(m, MIRROR_X) : m;
+  }
+
+  /** +1 for the usual extrusion (0, 0, 1), −1 for (0, 0, −1); anything tilted is refused. */
+  private extrusionSign(e: RawEntity): 1 | -1 {
     let nx = 0;
     let ny = 0;
     let nz = 1;
-    const { codes, values } = e;
-    for (let i = 0; i < codes.length; i++) {
-      const c = codes[i];
-      if (c === 210) nx = Number(values[i]);
-      else if (c === 220) ny = Number(values[i]);
-      else if (c === 230) nz = Number(values[i]);
+    const g = e.groups;
+    for (let i = 0; i < g.length; i += 2) {
+      const c = g[i];
+      if (c === 210) nx = g[i + 1] as number;
+      else if (c === 220) ny = g[i + 1] as number;
+      else if (c === 230) nz = g[i + 1] as number;
     }
-    if (nx === 0 && ny === 0 && nz === 1) return m;
+    if (nx === 0 && ny === 0 && nz === 1) return 1;
     const len = Math.hypot(nx, ny, nz);
     if (!(len > 0) || Math.hypot(nx, ny) > 1e-9 * len) {
       throw new FileRejected('not_flat', `${String(this.ref)} is not drawn in the XY plane (its extrusion direction is ${fmt(nx)}, ${fmt(ny)}, ${fmt(nz)}). Flatten the drawing before exporting it.`);
     }
-    // Arbitrary axis algorithm (DXF Reference, "Object Coordinate Systems"): for N = (0, 0, −1) the OCS x axis is −X.
-    return nz < 0 ? compose(m, MIRROR_X) : m;
+    return nz < 0 ? -1 : 1;
   }
 
   private required(e: RawEntity, code: number, what: string): number {
@@ -307,14 +269,14 @@ class DxfReader {
 
   private line(e: RawEntity, m: Affine, layer: LayerName): void {
     let x1: number | undefined, y1: number | undefined, x2: number | undefined, y2: number | undefined;
-    const { codes, values } = e;
-    for (let i = 0; i < codes.length; i++) {
-      switch (codes[i]) {
-        case 10: x1 = values[i] as number; break;
-        case 20: y1 = values[i] as number; break;
-        case 11: x2 = values[i] as number; break;
-        case 21: y2 = values[i] as number; break;
-        case 30: case 31: this.z(values[i]); break;
+    const g = e.groups;
+    for (let i = 0; i < g.length; i += 2) {
+      switch (g[i]) {
+        case 10: x1 = g[i + 1] as number; break;
+        case 20: y1 = g[i + 1] as number; break;
+        case 11: x2 = g[i + 1] as number; break;
+        case 21: y2 = g[i + 1] as number; break;
+        case 30: case 31: this.z(g[i + 1]); break;
       }
     }
     if (x1 === undefined || y1 === undefined) throw this.missing('start point', 10);
@@ -349,10 +311,10 @@ class DxfReader {
     const ys: number[] = [];
     const bulges: number[] = [];
     let flags = 0;
-    const { codes, values } = e;
-    for (let i = 0; i < codes.length; i++) {
-      const v = values[i];
-      switch (codes[i]) {
+    const g = e.groups;
+    for (let i = 0; i < g.length; i += 2) {
+      const v = g[i + 1];
+      switch (g[i]) {
         case 10: xs.push(v as number); ys.push(NaN); bulges.push(0); break;
         case 20:
           if (!xs.length) throw this.missing('vertex x before its y', 10);
@@ -421,7 +383,7 @@ class DxfReader {
       : !(Number.isFinite(t0) && Number.isFinite(t1)) ? 'its start or end parameter is not a number'
       : null;
     if (problem) throw new FileRejected('degenerate_entity', `${String(this.ref)} cannot be drawn: ${problem}.`);
-    const flipped = this.ocs(e, IDENTITY) !== IDENTITY; // extrusion (0,0,−1): parameters run clockwise
+    const flipped = this.extrusionSign(e) < 0; // extrusion (0,0,−1): parameters run clockwise
     let span = t1 - t0;
     while (span <= 0) span += 2 * Math.PI;
     const full = span >= 2 * Math.PI - 1e-9;
@@ -449,10 +411,10 @@ class DxfReader {
     const s: SplineData = { degree: 0, knots: [], control: [], weights: [] };
     let fitPoints = 0;
     let pendingX: number | undefined;
-    const { codes, values } = e;
-    for (let i = 0; i < codes.length; i++) {
-      const v = values[i] as number;
-      switch (codes[i]) {
+    const g = e.groups;
+    for (let i = 0; i < g.length; i += 2) {
+      const v = g[i + 1] as number;
+      switch (g[i]) {
         case 71: s.degree = v; break;
         case 40: s.knots.push(v); break;
         case 41: s.weights.push(v); break;
@@ -504,7 +466,7 @@ class DxfReader {
     const name = value(e, 2);
     if (name === undefined) throw this.missing('block name', 2);
     const blockName = String(name);
-    const block = Object.prototype.hasOwnProperty.call(this.blocks, blockName) ? this.blocks[blockName] : undefined;
+    const block = this.blocks.get(blockName);
     if (!block) throw new FileRejected('missing_block', `${String(this.ref)} places block "${blockName}", which the file does not define.`);
     if (stack.includes(blockName)) throw new FileRejected('nesting_too_deep', `Block "${blockName}" contains itself (through INSERT), so it would never end.`);
     if (depth + 1 > MAX_BLOCK_NESTING) {
@@ -526,16 +488,16 @@ class DxfReader {
     if (!Number.isInteger(cols) || !Number.isInteger(rows) || cols < 1 || rows < 1 || cols * rows > MAX_ARRAY_COPIES) {
       throw new FileRejected('too_complex', `${String(this.ref)} places block "${blockName}" in a ${cols} × ${rows} array; Jigwright takes at most ${MAX_ARRAY_COPIES.toLocaleString('en-US')} copies per insert.`);
     }
-    const bx = Number(block.position?.x ?? 0);
-    const by = Number(block.position?.y ?? 0);
+    const bx = block.baseX;
+    const by = block.baseY;
     this.z(value(e, 30));
     const base = compose(this.ocs(e, m), compose(translation(px, py), rotationDeg(rot)));
     const local = compose(scaling(sx, sy), translation(-bx, -by));
-    const saved = { type: this.ref.type, index: this.ref.index, handle: this.ref.handle, block: this.ref.block };
+    const saved = { type: this.ref.type, line: this.ref.line, handle: this.ref.handle, block: this.ref.block };
     for (let r = 0; r < rows; r++) {
       for (let c = 0; c < cols; c++) {
         const placed = compose(base, compose(translation(c * dx, r * dy), local));
-        this.drawList(block.entities ?? [], placed, layer, depth + 1, [...stack, blockName]);
+        this.drawList(block.entities, placed, layer, depth + 1, [...stack, blockName]);
       }
     }
     Object.assign(this.ref, saved);
@@ -544,8 +506,9 @@ class DxfReader {
 
 /** First value of a group code, or undefined. */
 function value(e: RawEntity, code: number): GroupValue | undefined {
-  const i = e.codes.indexOf(code);
-  return i < 0 ? undefined : e.values[i];
+  const g = e.groups;
+  for (let i = 0; i < g.length; i += 2) if (g[i] === code) return g[i + 1];
+  return undefined;
 }
 
 /** Index of the last entity that belongs to the POLYLINE at `i`: its SEQEND (scan.ts checks there is one). */

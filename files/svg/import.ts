@@ -33,7 +33,7 @@ const UNFLIP: Affine = [1, 0, 0, -1, 0, 0];
 
 const FORBIDDEN_ELEMENTS = new Set(['script', 'foreignobject', 'iframe', 'embed', 'object', 'handler', 'listener', 'audio', 'video']);
 const SHAPES = new Set(['path', 'rect', 'circle', 'ellipse', 'line', 'polyline', 'polygon']);
-const CONTAINERS = new Set(['g', 'a', 'switch']);
+const CONTAINERS = new Set(['g', 'a']);
 const NOT_DRAWN = new Set([
   'defs', 'symbol', 'clipPath', 'mask', 'marker', 'pattern', 'linearGradient', 'radialGradient', 'stop', 'filter',
   'metadata', 'title', 'desc', 'style', 'animate', 'animateTransform', 'animateMotion', 'set', 'view', 'cursor',
@@ -257,6 +257,11 @@ class SvgDrawing {
       }
     }
     const layer = layerOf(attrs) ?? inherited;
+    if (name === 'switch') {
+      // <switch> renders one alternative (SVG 1.1 §5.8); conditions are not evaluated, the first child is used
+      const first = childrenOf(node, tag).find((c) => isElement(tagOf(c)));
+      return first ? this.element(first, tagOf(first)!, m, view, layer, uses) : undefined;
+    }
     if (CONTAINERS.has(name)) return this.children(node, tag, m, view, layer, uses);
     if (SHAPES.has(name)) {
       this.counts[name] = (this.counts[name] ?? 0) + 1;

@@ -6,6 +6,7 @@ import { logActivity } from '../designs/repository';
 import { HttpError, notFound } from '../http/errors';
 import { authOf } from '../http/policy';
 import type { ApiRouter } from '../http/router';
+import { readMultipart } from '../http/upload';
 import { shopFromParam, shopOfCut, shopOfRevision } from '../library/locators';
 import { cutsOfRevision, deviceKeyOf, fitHistory, insertCut } from './repository';
 
@@ -18,7 +19,7 @@ function photoType(buf: Buffer): { ext: 'jpg' | 'png'; type: string } | null {
 
 export function cutRoutes(api: ApiRouter): void {
   const { db, objects } = api.deps;
-  const photo = multer({ storage: multer.memoryStorage(), limits: { fileSize: 8 * 1024 * 1024, files: 1, fields: 12, fieldSize: 4096 } }).single('photo');
+  const photo = readMultipart(multer({ storage: multer.memoryStorage(), limits: { fileSize: 8 * 1024 * 1024, files: 1, fields: 12, fieldSize: 4096 } }).single('photo'));
 
   api.route('get', '/revisions/:revisionId/cuts', { kind: 'shop', role: 'viewer', shop: shopOfRevision }, async (req, res) => {
     res.json({ items: await cutsOfRevision(db, req.params.revisionId as string) });

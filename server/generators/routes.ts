@@ -5,6 +5,10 @@ import { renderSvg } from '../../shared/geometry/svg';
 import { paramDocs } from '../../shared/params';
 import { HttpError, notFound } from '../http/errors';
 import type { ApiRouter } from '../http/router';
+import { z } from 'zod';
+
+/** The body is { params }; anything else beside it is refused rather than ignored. */
+const RunBody = z.strictObject({ params: z.unknown().optional() }, { error: (i) => (i.code === 'unrecognized_keys' ? `Unknown field: ${(i as { keys: string[] }).keys.join(', ')}; send { "params": { … } }` : 'Send the parameters as a JSON object: { "params": { … } }') });
 
 /** Same declarations every time: built once. */
 const LISTING = GENERATORS.map((g) => ({
@@ -26,7 +30,7 @@ export function generatorRoutes(api: ApiRouter): void {
     const id = req.params.id as string;
     const gen = getGenerator(id);
     if (!gen) throw notFound(`There is no generator "${id}"`);
-    const body = (req.body ?? {}) as { params?: unknown };
+    const body = RunBody.parse(req.body ?? {});
     const run = runGenerator(id, body.params);
     if (!run.ok) throw new HttpError(400, 'invalid_params', run.message, { fields: run.fields });
     const { model, underside, report, summary } = run.result;

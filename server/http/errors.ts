@@ -60,6 +60,11 @@ export function errorHandler(log: { error: (o: object, m: string) => void }): Er
     } else if (typeof err?.code === 'string' && err.code.startsWith('LIMIT_')) {
       status = 400;
       body = { code: 'bad_upload', message: `Upload refused: ${err.message}` };
+    } else if (isClientHttpError(err)) {
+      // body-parser and the router report unreadable requests (bad %-escapes in the path, an
+      // unknown Content-Encoding or charset, a broken gzip body) as http-errors with a 4xx status.
+      status = Number(err.status ?? err.statusCode);
+      body = clientHttpErrorBody(err, status);
     } else if (isDatabaseDown(err)) {
       status = 503;
       body = { code: 'unavailable', message: 'The database is unavailable; try again in a moment' };
@@ -78,6 +83,25 @@ function summarizeFields(fields: Record<string, string>): string {
   const [k, v] = entries[0];
   const first = k === '_' ? v : `${k}: ${v}`;
   return entries.length === 1 ? first : `${first} (and ${entries.length - 1} more)`;
+}
+
+function isClientHttpError(err: any): boolean {
+  const s = Number(err?.status ?? err?.statusCode);
+  return Number.isInteger(s) && s >= 400 && s < 500 && err?.expose !== false;
+}
+
+function clientHttpErrorBody(err: any, status: number): { code: string; message: string } {
+  const type = String(err?.type ?? '');
+  if (type === 'encoding.unsupported') {
+    return { code: 'unsupported_encoding', message: 'The request body is compressed in a way the API does not read; send it uncompressed, or with gzip or deflate' };
+  }
+  if (type === 'charset.unsupported') return { code: 'unsupported_charset', message: 'The request body is in a character set the API does not read; send it as UTF-8' };
+  if (type === 'request.aborted') return { code: 'aborted', message: 'The request ended before its body was complete; send it again' };
+  if (/^Failed to decode param/.test(String(err?.message))) {
+    return { code: 'bad_path', message: 'The address has a broken %-escape; check the link and try again' };
+  }
+  if (status === 400) return { code: 'unreadable_body', message: 'The request body could not be read (it may be damaged or wrongly compressed); send it again' };
+  return { code: 'bad_request', message: 'The request could not be handled as sent' };
 }
 
 function isDatabaseDown(err: any): boolean {

@@ -7,6 +7,7 @@ import { logActivity } from '../designs/repository';
 import { badRequest, HttpError, notFound } from '../http/errors';
 import { authOf } from '../http/policy';
 import type { ApiRouter } from '../http/router';
+import { readMultipart } from '../http/upload';
 import { isUuid, shopOfDesign, shopOfRevision } from '../library/locators';
 import { templatePdf } from '../../files/print/template';
 import { compareRevisions, type Comparable } from '../../shared/compare';
@@ -34,10 +35,12 @@ function uploadError(e: unknown): never {
 
 export function revisionRoutes(api: ApiRouter): void {
   const { db, objects, config } = api.deps;
-  const upload = multer({
-    storage: multer.memoryStorage(),
-    limits: { fileSize: config.uploadMaxBytes, files: 1, fields: 8, fieldSize: 64 * 1024, parts: 10 },
-  }).single('file');
+  const upload = readMultipart(
+    multer({
+      storage: multer.memoryStorage(),
+      limits: { fileSize: config.uploadMaxBytes, files: 1, fields: 8, fieldSize: 64 * 1024, parts: 10 },
+    }).single('file'),
+  );
   const viewerOfRevision = { kind: 'shop' as const, role: 'viewer' as const, shop: shopOfRevision };
   const editorOfRevision = { kind: 'shop' as const, role: 'editor' as const, shop: shopOfRevision };
   const editorOfDesign = { kind: 'shop' as const, role: 'editor' as const, shop: shopOfDesign };
@@ -65,6 +68,7 @@ export function revisionRoutes(api: ApiRouter): void {
       unitsFrom: imported.unitsFrom,
       entityCounts: imported.entityCounts,
       warnings: imported.warnings,
+      sizeCheck: imported.sizeCheck ?? null,
       summary: imported.summary,
       svg: modelToSvg(imported.model, {}),
     });
@@ -93,7 +97,7 @@ export function revisionRoutes(api: ApiRouter): void {
       original: { body, contentType: imported.format === 'dxf' ? 'application/dxf' : 'image/svg+xml', ext: imported.format },
       activity: { action: 'revision.uploaded', detail: { format: imported.format, sourceUnits: imported.sourceUnits, warnings: imported.warnings.length } },
     });
-    res.status(201).json({ ...saved, warnings: imported.warnings, summary: imported.summary });
+    res.status(201).json({ ...saved, warnings: imported.warnings, sizeCheck: imported.sizeCheck ?? null, summary: imported.summary });
   });
 
   api.route('get', '/revisions/:revisionId', viewerOfRevision, async (req, res) => {

@@ -30,7 +30,7 @@ export function previewFrame(model: makerjs.IModel): PreviewFrame {
 export function modelToLayerPaths(model: makerjs.IModel): LayerPath[] {
   const ext = makerjs.measure.modelExtents(model);
   if (!ext) return [];
-  const byLayer = makerjs.exporter.toSVGPathData(model, { byLayers: true, origin: [ext.low[0], ext.high[1]] }) as makerjs.exporter.IPathDataByLayerMap;
+  const byLayer = makerjs.exporter.toSVGPathData(model, { byLayers: true, fillRule: 'nonzero', origin: [ext.low[0], ext.high[1]] }) as makerjs.exporter.IPathDataByLayerMap;
   const known = LAYERS.filter((l) => byLayer[l]).map((layer) => ({ layer, d: byLayer[layer] as string }));
   const others = Object.keys(byLayer)
     .filter((l) => !(LAYERS as readonly string[]).includes(l) && byLayer[l])

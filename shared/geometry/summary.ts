@@ -3,15 +3,46 @@
 // the chains: the shoelace sum over each link's chord plus, for each arc, its circular segment
 // r²(θ − sin θ)/2 (added when the arc runs counter-clockwise along the chain, subtracted when
 // clockwise); a full circle is πr². Outermost closed chains count positive, holes negative.
+//
+// Contours are found by a light chain finder of our own (endpoints matched on a 1e-6 mm grid)
+// when every joint joins at most two paths, which is all a generator draws; anything else
+// (branching joints, curves other than lines, arcs and circles) goes to makerjs.model.findChains.
 import makerjs from 'makerjs';
 import type { GeometrySummary } from '../schemas/geometry';
 
 type Features = NonNullable<GeometrySummary['features']>;
 type Pt = [number, number];
 
-const pt = (p: makerjs.IPoint): Pt => [p[0], p[1]];
+/** A closed contour: its enclosed area (unsigned), a point on it, and its outline as points. */
+interface Loop {
+  area: number;
+  sample: Pt;
+  points: () => Pt[];
+}
 
-/** Signed area enclosed by a closed chain (counter-clockwise positive), mm². */
+/** Chord term plus circular segment of one path run from `s` to `e` (arcs: forward = CCW). */
+function pathAreaTerm(path: makerjs.IPath, s: Pt, e: Pt, reversed: boolean): number {
+  let a = (s[0] * e[1] - e[0] * s[1]) / 2;
+  if (path.type === makerjs.pathType.Arc) {
+    const arc = path as makerjs.IPathArc;
+    const theta = (makerjs.angle.ofArcSpan(arc) * Math.PI) / 180;
+    const segment = (arc.radius * arc.radius * (theta - Math.sin(theta))) / 2;
+    a += reversed ? -segment : segment;
+  }
+  return a;
+}
+
+function circleLoop(c: makerjs.IPathCircle, offset: makerjs.IPoint): Loop {
+  const cx = c.origin[0] + offset[0];
+  const cy = c.origin[1] + offset[1];
+  return {
+    area: Math.PI * c.radius * c.radius,
+    sample: [cx + c.radius, cy],
+    points: () => makerjs.path.toKeyPoints(c, 0.5).map((q) => [q[0] + offset[0], q[1] + offset[1]] as Pt),
+  };
+}
+
+/** Signed area enclosed by a makerjs chain (counter-clockwise positive), mm². */
 export function chainSignedArea(chain: makerjs.IChain): number {
   let area = 0;
   for (const link of chain.links) {
@@ -22,55 +53,199 @@ export function chainSignedArea(chain: makerjs.IChain): number {
       continue;
     }
     const [a, b] = link.endPoints;
-    const [s, e] = link.reversed ? [pt(b), pt(a)] : [pt(a), pt(b)];
-    area += (s[0] * e[1] - e[0] * s[1]) / 2;
-    if (path.type === makerjs.pathType.Arc) {
-      const arc = path as makerjs.IPathArc;
-      const theta = (makerjs.angle.ofArcSpan(arc) * Math.PI) / 180;
-      const segment = (arc.radius * arc.radius * (theta - Math.sin(theta))) / 2;
-      area += link.reversed ? -segment : segment;
-    }
+    const s: Pt = link.reversed ? [b[0], b[1]] : [a[0], a[1]];
+    const e: Pt = link.reversed ? [a[0], a[1]] : [b[0], b[1]];
+    area += pathAreaTerm(path, s, e, link.reversed);
   }
   return area;
 }
 
-function insidePolygon(p: Pt, poly: makerjs.IPoint[]): boolean {
+function insidePolygon(p: Pt, poly: Pt[]): boolean {
   let inside = false;
   for (let i = 0, j = poly.length - 1; i < poly.length; j = i++) {
-    const [xi, yi] = [poly[i][0], poly[i][1]];
-    const [xj, yj] = [poly[j][0], poly[j][1]];
+    const [xi, yi] = poly[i];
+    const [xj, yj] = poly[j];
     if (yi > p[1] !== yj > p[1] && p[0] < ((xj - xi) * (p[1] - yi)) / (yj - yi) + xi) inside = !inside;
   }
   return inside;
 }
 
-function samplePoint(chain: makerjs.IChain): Pt {
-  const link = chain.links[0];
-  const path = link.walkedPath.pathContext;
-  if (path.type === makerjs.pathType.Circle) {
-    const c = makerjs.point.add(path.origin, link.walkedPath.offset);
-    return [c[0] + (path as makerjs.IPathCircle).radius, c[1]];
-  }
-  return pt(link.endPoints[0]);
-}
-
-/** Outermost closed chains minus the holes inside them (alternating by nesting depth), mm². */
-export function areaOfChains(chains: makerjs.IChain[]): number {
-  const closed = chains.filter((c) => c.endless);
-  if (closed.length === 0) return 0;
-  const areas = closed.map((c) => Math.abs(chainSignedArea(c)));
-  if (closed.length === 1) return areas[0];
-  const polys = closed.map((c) => makerjs.chain.toKeyPoints(c, 0.5));
+/** Outermost loops minus the holes inside them (alternating by nesting depth), mm². */
+function areaOfLoops(loops: Loop[]): number {
+  if (loops.length === 0) return 0;
+  if (loops.length === 1) return loops[0].area;
+  const polys = loops.map((l) => l.points());
   let total = 0;
-  for (let i = 0; i < closed.length; i++) {
-    const p = samplePoint(closed[i]);
+  for (let i = 0; i < loops.length; i++) {
     let depth = 0;
-    for (let j = 0; j < closed.length; j++) {
-      if (j !== i && areas[j] > areas[i] && insidePolygon(p, polys[j])) depth++;
+    for (let j = 0; j < loops.length; j++) {
+      if (j !== i && loops[j].area > loops[i].area && insidePolygon(loops[i].sample, polys[j])) depth++;
     }
-    total += depth % 2 === 0 ? areas[i] : -areas[i];
+    total += depth % 2 === 0 ? loops[i].area : -loops[i].area;
   }
   return total;
+}
+
+/** Outermost closed chains minus the holes inside them, for chains makerjs found. */
+export function areaOfChains(chains: makerjs.IChain[]): number {
+  return areaOfLoops(
+    chains
+      .filter((c) => c.endless)
+      .map((c) => {
+        const first = c.links[0];
+        const path = first.walkedPath.pathContext;
+        if (path.type === makerjs.pathType.Circle) return circleLoop(path as makerjs.IPathCircle, first.walkedPath.offset);
+        return {
+          area: Math.abs(chainSignedArea(c)),
+          sample: [first.endPoints[0][0], first.endPoints[0][1]] as Pt,
+          points: () => makerjs.chain.toKeyPoints(c, 0.5).map((q) => [q[0], q[1]] as Pt),
+        };
+      }),
+  );
+}
+
+interface Seg {
+  path: makerjs.IPath;
+  offset: makerjs.IPoint;
+  a: Pt;
+  b: Pt;
+  na: number;
+  nb: number;
+}
+
+const GRID = 1e6; // endpoints within about 1e-6 mm are the same joint
+
+/** Our chain finder for one layer; null when the layer needs makerjs (branching, other curves). */
+function contoursOfLayer(paths: { path: makerjs.IPath; offset: makerjs.IPoint }[], wantLoops: boolean): { closed: number; open: number; loops: Loop[] } | null {
+  let closed = 0;
+  let open = 0;
+  const loops: Loop[] = [];
+  const segs: Seg[] = [];
+  const cells = new Map<string, number>();
+  const nodePos: Pt[] = [];
+  const nodeOf = (p: Pt): number => {
+    const ix = Math.round(p[0] * GRID);
+    const iy = Math.round(p[1] * GRID);
+    const hit = cells.get(`${ix},${iy}`);
+    if (hit !== undefined) return hit;
+    for (let dx = -1; dx <= 1; dx++) {
+      for (let dy = -1; dy <= 1; dy++) {
+        const n = cells.get(`${ix + dx},${iy + dy}`);
+        if (n !== undefined) return n;
+      }
+    }
+    const id = nodePos.length;
+    nodePos.push(p);
+    cells.set(`${ix},${iy}`, id);
+    return id;
+  };
+  for (const { path, offset } of paths) {
+    if (path.type === makerjs.pathType.Circle) {
+      closed++;
+      if (wantLoops) loops.push(circleLoop(path as makerjs.IPathCircle, offset));
+      continue;
+    }
+    let a: Pt;
+    let b: Pt;
+    if (path.type === makerjs.pathType.Line) {
+      const l = path as makerjs.IPathLine;
+      a = [l.origin[0] + offset[0], l.origin[1] + offset[1]];
+      b = [l.end[0] + offset[0], l.end[1] + offset[1]];
+    } else if (path.type === makerjs.pathType.Arc) {
+      const [s, e] = makerjs.point.fromArc(path as makerjs.IPathArc);
+      a = [s[0] + offset[0], s[1] + offset[1]];
+      b = [e[0] + offset[0], e[1] + offset[1]];
+    } else return null;
+    const na = nodeOf(a);
+    const nb = nodeOf(b);
+    if (na === nb) return null; // zero-length or a full-turn arc: leave it to makerjs
+    segs.push({ path, offset, a, b, na, nb });
+  }
+  const at: number[][] = nodePos.map(() => []);
+  for (let i = 0; i < segs.length; i++) {
+    at[segs[i].na].push(i);
+    at[segs[i].nb].push(i);
+  }
+  if (at.some((list) => list.length > 2)) return null;
+
+  const seen = new Uint8Array(segs.length);
+  for (let start = 0; start < segs.length; start++) {
+    if (seen[start]) continue;
+    // Walk forward from the start's b end; a loop returns to it, an open run meets a dead end.
+    let area = 0;
+    const order: { seg: number; reversed: boolean }[] = [];
+    let cur = start;
+    let reversed = false;
+    let isLoop = false;
+    for (;;) {
+      seen[cur] = 1;
+      order.push({ seg: cur, reversed });
+      const s = segs[cur];
+      area += pathAreaTerm(s.path, reversed ? s.b : s.a, reversed ? s.a : s.b, reversed);
+      const node: number = reversed ? s.na : s.nb;
+      const next: number | undefined = at[node].find((i) => i !== cur);
+      if (next === undefined) break;
+      if (next === start) {
+        isLoop = true;
+        break;
+      }
+      if (seen[next]) break;
+      reversed = segs[next].nb === node;
+      cur = next;
+    }
+    if (!isLoop) {
+      // Also walk backwards from the start's a end, so the whole run is marked as one contour.
+      let node = segs[start].na;
+      let prev = start;
+      for (;;) {
+        const next = at[node].find((i) => i !== prev);
+        if (next === undefined || seen[next]) break;
+        seen[next] = 1;
+        node = segs[next].na === node ? segs[next].nb : segs[next].na;
+        prev = next;
+      }
+      open++;
+      continue;
+    }
+    closed++;
+    if (wantLoops) {
+      const first = segs[start];
+      loops.push({
+        area: Math.abs(area),
+        sample: first.a,
+        points: () => {
+          const pts: Pt[] = [];
+          for (const { seg, reversed: r } of order) {
+            const s = segs[seg];
+            const k = makerjs.path.toKeyPoints(s.path, 0.5).map((q) => [q[0] + s.offset[0], q[1] + s.offset[1]] as Pt);
+            pts.push(...(r ? k.reverse() : k));
+          }
+          return pts;
+        },
+      });
+    }
+  }
+  return { closed, open, loops };
+}
+
+/** Contours and part area by makerjs.model.findChains: the general route, and the reference for tests. */
+export function contoursByFindChains(model: makerjs.IModel, partLayer: string | null): { closed: number; open: number; area: number } {
+  let closed = 0;
+  let open = 0;
+  let area = 0;
+  makerjs.model.findChains(
+    model,
+    (chains, loose, layer) => {
+      for (const c of chains) {
+        if (c.endless) closed++;
+        else open++;
+      }
+      open += loose.length;
+      if ((layer || '0') === partLayer) area = areaOfChains(chains);
+    },
+    { byLayers: true },
+  );
+  return { closed, open, area };
 }
 
 /**
@@ -94,9 +269,16 @@ function eachPath(model: makerjs.IModel, offset: makerjs.IPoint, layer: string, 
   }
 }
 
+/** Which layer is the part: `outline`, or everything when the drawing has no layers at all. */
+export function partLayerOf(layers: Record<string, number>): string | null {
+  if (layers.outline) return 'outline';
+  return Object.keys(layers).every((l) => l === '0') ? '0' : null;
+}
+
 /** The summary every saved revision records (shared/schemas/geometry.ts), in millimetres. */
 export function summarizeModel(model: makerjs.IModel, features?: Features): GeometrySummary {
   const layers: Record<string, number> = {};
+  const byLayer: Record<string, { path: makerjs.IPath; offset: makerjs.IPoint }[]> = {};
   let perimeter = 0;
   let minX = Infinity;
   let minY = Infinity;
@@ -105,6 +287,7 @@ export function summarizeModel(model: makerjs.IModel, features?: Features): Geom
   eachPath(model, [0, 0], model.layer ?? '', (path, offset, layer) => {
     const l = layer || '0';
     layers[l] = (layers[l] ?? 0) + 1;
+    (byLayer[l] ??= []).push({ path, offset });
     perimeter += makerjs.measure.pathLength(path);
     const e = makerjs.measure.pathExtents(path, offset);
     if (e.low[0] < minX) minX = e.low[0];
@@ -113,37 +296,27 @@ export function summarizeModel(model: makerjs.IModel, features?: Features): Geom
     if (e.high[1] > maxY) maxY = e.high[1];
   });
 
+  const partLayer = partLayerOf(layers);
   let closedContours = 0;
   let openContours = 0;
-  const chainsByLayer: Record<string, makerjs.IChain[]> = {};
-  makerjs.model.findChains(
-    model,
-    (chains, loose, layer) => {
-      chainsByLayer[layer || '0'] = chains;
-      for (const c of chains) {
-        if (c.endless) closedContours++;
-        else openContours++;
-      }
-      openContours += loose.length;
-    },
-    { byLayers: true },
-  );
+  let area = 0;
+  let general = false;
+  for (const l in byLayer) {
+    const c = contoursOfLayer(byLayer[l], l === partLayer);
+    if (!c) {
+      general = true;
+      break;
+    }
+    closedContours += c.closed;
+    openContours += c.open;
+    if (l === partLayer) area = areaOfLoops(c.loops);
+  }
+  if (general) ({ closed: closedContours, open: openContours, area } = contoursByFindChains(model, partLayer));
 
-  // The part is what is on the `outline` layer; a drawing with no layers at all is all outline.
-  const partChains = chainsByLayer.outline ?? (Object.keys(layers).every((l) => l === '0') ? chainsByLayer['0'] ?? [] : []);
   const extents = Number.isFinite(minX)
     ? { minX, minY, maxX, maxY, width: maxX - minX, height: maxY - minY }
     : { minX: 0, minY: 0, maxX: 0, maxY: 0, width: 0, height: 0 };
-
-  const summary: GeometrySummary = {
-    units: 'mm',
-    extents,
-    area: areaOfChains(partChains),
-    perimeter,
-    closedContours,
-    openContours,
-    layers,
-  };
+  const summary: GeometrySummary = { units: 'mm', extents, area, perimeter, closedContours, openContours, layers };
   if (features) summary.features = features;
   return summary;
 }

@@ -22,6 +22,9 @@ export function renderSvg(model: makerjs.IModel, opts: { title?: string } = {}):
   const withUnits: makerjs.IModel = model.units ? model : { ...model, units: makerjs.unitType.Millimeter };
   const svg = makerjs.exporter.toSVG(withUnits, {
     useSvgPathOnly: true,
+    // nonzero: makerjs winds holes against their outlines, so overlapping pocket shapes (pocket +
+    // finger notch) fill as one, where evenodd would leave their overlap blank.
+    fillRule: 'nonzero',
     viewBox: true,
     fill: 'none',
     stroke: '#1F2421',

@@ -12,6 +12,7 @@ import type { Role } from '../../db/schema';
 import { hashLinkToken, newLinkToken } from '../../server/auth/secrets';
 import { uniqueEmail } from '../support/accounts';
 import type { FixtureHook, MatrixFixture, MatrixRequest, Principal } from './authz-matrix.fixture';
+import { LIBRARY_ROWS, libraryFixture } from './authz-matrix.library';
 
 export interface MatrixRow {
   request: (f: MatrixFixture, who: Principal) => MatrixRequest | Promise<MatrixRequest>;
@@ -19,7 +20,7 @@ export interface MatrixRow {
 }
 
 /** Runs once per row, after the shop and its people exist: add designs, revisions… here. */
-export const FIXTURE_HOOKS: FixtureHook[] = [];
+export const FIXTURE_HOOKS: FixtureHook[] = [libraryFixture];
 
 /** The same answer for everyone, signed in or not. */
 const anyone = (ok: number): Record<Principal, number> => ({ anonymous: ok, outsider: ok, viewer: ok, editor: ok, owner: ok });
@@ -33,6 +34,7 @@ function members(min: Role, ok: number): Record<Principal, number> {
 }
 
 export const MATRIX: Record<string, MatrixRow> = {
+  ...LIBRARY_ROWS,
   'GET /api/health': { request: () => ({ path: '/api/health' }), expect: anyone(200) },
 
   // Generators and calculators: pure computation on the request's parameters, open to anyone.

@@ -65,7 +65,7 @@ describe('POST /api/generators/:id/preview', () => {
   });
 
   it('answers 400 on inconsistent combinations, on the field to change', async () => {
-    const res = await ctx.http.post('/api/generators/charger-insert/preview').send({ params: { plateThickness: 6, pocketDepth: 3, skinThickness: 4 } });
+    const res = await ctx.http.post('/api/generators/charger-insert/preview').send({ params: { plateThickness: 8, pocketDepth: 4, skinThickness: 4 } });
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('invalid_params');
     expect(Object.keys(res.body.error.fields)).toEqual(['skinThickness']);

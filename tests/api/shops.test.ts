@@ -3,7 +3,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import supertest from 'supertest';
 import { createApp } from '../../server/app';
 import { createMailer } from '../../server/mail/mailer';
-import { accountCounts, bearer, signUpVia, uniqueEmail, type SignedUp } from '../support/accounts';
+import { changeRole, removeMember } from '../../server/shops/repository';
+import { accountCounts, addMembership, bearer, insertPerson, insertShop, signUpVia, uniqueEmail, type SignedUp } from '../support/accounts';
 import { createTestContext, type TestContext } from '../support/context';
 import { firstLink } from '../support/mailbox';
 
@@ -246,15 +247,35 @@ describe('roles and members', () => {
     expect(await accountCounts(ctx.db)).toEqual(before);
   });
 
-  it('with a second owner, the first may step down; two owners demoting each other at once leave one', async () => {
+  it('with a second owner, two owners demoting each other at once leave exactly one owner', async () => {
     const { owner, shop, member } = await shopWithMember('owner');
     const [a, b] = await Promise.all([
       ctx.http.patch(`/api/shops/${shop.id}/members/${member.id}`).set(bearer(owner.token)).send({ role: 'viewer' }),
       ctx.http.patch(`/api/shops/${shop.id}/members/${owner.id}`).set(bearer(member.token)).send({ role: 'viewer' }),
     ]);
-    expect([a.status, b.status].sort()).toEqual([200, 409].sort());
+    // The later one is refused: by the policy (403, no longer an owner) or by the last-owner rule (409).
+    const statuses = [a.status, b.status].sort();
+    expect(statuses[0]).toBe(200);
+    expect([403, 409]).toContain(statuses[1]);
     const owners = await ctx.db.selectFrom('memberships').select('user_id').where('shop_id', '=', shop.id).where('role', '=', 'owner').execute();
     expect(owners).toHaveLength(1);
+  });
+
+  it('the last-owner rule holds when two changes race past the role check together (row locks)', async () => {
+    for (let round = 0; round < 8; round++) {
+      const shopId = await insertShop(ctx.db, 'Racing Lathe Co-op');
+      const a = await insertPerson(ctx.db);
+      const b = await insertPerson(ctx.db);
+      await addMembership(ctx.db, shopId, a.id, 'owner');
+      await addMembership(ctx.db, shopId, b.id, 'owner');
+      // Straight to the repository, as two requests would after both passed their policy check.
+      const results = await Promise.allSettled([changeRole(ctx.db, shopId, a.id, 'editor'), removeMember(ctx.db, shopId, b.id)]);
+      expect(results.filter((r) => r.status === 'fulfilled')).toHaveLength(1);
+      const refused = results.find((r) => r.status === 'rejected') as PromiseRejectedResult;
+      expect(refused.reason.status).toBe(409);
+      const owners = await ctx.db.selectFrom('memberships').select('user_id').where('shop_id', '=', shopId).where('role', '=', 'owner').execute();
+      expect(owners).toHaveLength(1);
+    }
   });
 
   it('the owner removes a member, who then cannot see the shop (404)', async () => {

@@ -5,8 +5,8 @@
 // DXF facts from the Autodesk DXF Reference: HEADER $INSUNITS group 70, 4 = millimeters.
 import fs from 'node:fs';
 import DxfParserModule from 'dxf-parser';
-import type { BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext, Locator, Page } from 'playwright-core';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { circle, dxfFile, rectLines } from '../support/dxf';
 import { PHONE, WIDE, baseUrl, openBrowser, screenshot } from './browser';
 
@@ -37,6 +37,9 @@ async function useShop(page: Page, shopId: string) {
   await page.evaluate((id) => localStorage.setItem('jigwright.currentShop', id), shopId);
 }
 
+// Expo Router's stack keeps earlier screens mounted but hidden: look only at the one on show.
+const shown = (l: Locator) => l.filter({ visible: true });
+
 const dxfUpload = (name: string, text: string) => ({ name, mimeType: 'application/dxf', buffer: Buffer.from(text) });
 
 describe('library, revisions and forks in the browser', () => {
@@ -49,6 +52,10 @@ describe('library, revisions and forks in the browser', () => {
     shops = (await signIn(b.context)).shops;
   });
   afterAll(async () => b?.close());
+  // A failing step leaves a picture of the screen it failed on.
+  afterEach(async (ctx) => {
+    if (ctx.task.result?.state === 'fail') await screenshot(b.page, `library-failed-${ctx.task.name.slice(0, 24).replace(/\W+/g, '-')}`).catch(() => {});
+  });
 
   it('creates a design, checks an uploaded DXF before saving, and shows r1 with its fit notes', async () => {
     const { page } = b;
@@ -102,7 +109,7 @@ describe('library, revisions and forks in the browser', () => {
     await page.getByTestId('clearance').fill('1.5');
     await page.getByTestId('revision-save').click();
     await page.getByText('Say what changed in this revision').waitFor();
-    await page.getByText('Device length must be a number (mm)').waitFor();
+    await page.getByText('Enter a length like 12.5').waitFor();
     expect(await page.getByTestId('device-width').inputValue()).toBe('71.5');
     await page.getByTestId('device-length').fill('148');
     await page.getByTestId('revision-message').fill('First cut file from the shop drawing');
@@ -110,16 +117,23 @@ describe('library, revisions and forks in the browser', () => {
     await page.getByTestId('revision-save').click();
 
     await page.waitForURL(/\/designs\/[0-9a-f-]{36}\?r=1$/, { timeout: 30000 });
-    const shown = page.getByTestId('selected-revision');
-    await shown.getByText('r1', { exact: true }).waitFor({ timeout: 30000 });
-    await shown.getByText('First cut file from the shop drawing').waitFor();
-    await page.getByTestId('fit-notes').getByText('71.5 × 148 × 8.2 mm (W × L × T)').waitFor();
-    await page.getByTestId('fit-notes').getByText('1.5 mm per side').waitFor();
-    await page.getByTestId('revision-history').getByText('Uploaded file', { exact: false }).waitFor();
-    await page.getByTestId('activity-log').getByText('uploaded a DXF file drawn in mm').waitFor();
-    await page.getByText('Before you cut or wire anything').waitFor(); // cautions beside the downloads
-    await page.getByTestId('revision-drawing').waitFor();
+    const selected = shown(page.getByTestId('selected-revision'));
+    await selected.getByRole('heading', { name: 'r1', exact: true }).waitFor({ timeout: 30000 });
+    await selected.getByText('First cut file from the shop drawing').waitFor();
+    await shown(page.getByTestId('fit-notes')).getByText('71.5 × 148 × 8.2 mm (W × L × T)').waitFor();
+    await shown(page.getByTestId('fit-notes')).getByText('1.5 mm per side').waitFor();
+    await shown(page.getByTestId('revision-history')).getByText('Uploaded file', { exact: false }).waitFor();
+    await shown(page.getByTestId('activity-log')).getByText('uploaded a DXF file drawn in mm').waitFor();
+    await shown(page.getByText('Before you cut or wire anything')).waitFor(); // cautions beside the downloads
+    await shown(page.getByTestId('revision-drawing')).waitFor();
     await screenshot(page, 'design-wide');
+
+    // An editor moves r1 on from draft; the history and the log both say so.
+    await page.getByTestId('status-change-1').click();
+    await page.getByRole('radio', { name: 'Trial cut' }).click();
+    await page.getByTestId('status-save-1').click();
+    await shown(page.getByTestId('activity-log')).getByText('moved r1 from Draft to Trial cut').waitFor({ timeout: 30000 });
+    await shown(page.getByTestId('revision-1')).getByText('Trial cut').waitFor();
   });
 
   it('forks r1 into Otterbrook Makerspace and shows the lineage on both designs', async () => {
@@ -130,17 +144,17 @@ describe('library, revisions and forks in the browser', () => {
     await panel.getByRole('radio', { name: 'Otterbrook Makerspace' }).click();
     await panel.getByTestId('fork-submit').click();
     await page.waitForURL((u) => u.href !== designUrl && /\/designs\/[0-9a-f-]{36}$/.test(u.pathname), { timeout: 30000 });
-    const lineage = page.getByTestId('lineage');
+    const lineage = shown(page.getByTestId('lineage'));
     await lineage.getByText('in Larchmere Workshop', { exact: false }).waitFor({ timeout: 30000 });
     await lineage.getByRole('link', { name: TITLE }).waitFor();
-    await page.getByText('in Otterbrook Makerspace', { exact: false }).first().waitFor();
-    await page.getByTestId('selected-revision').getByText(`Forked from ${TITLE} r1 (Larchmere Workshop)`).waitFor();
+    await shown(page.getByText('in Otterbrook Makerspace', { exact: true })).waitFor();
+    await shown(page.getByTestId('selected-revision')).getByText(`Forked from ${TITLE} r1 (Larchmere Workshop)`).waitFor();
     await screenshot(page, 'design-fork-wide');
 
     await lineage.getByRole('link', { name: TITLE }).click();
     await page.waitForURL(designUrl);
-    await page.getByTestId('lineage').getByText('Forked 1 time').waitFor({ timeout: 30000 });
-    await page.getByTestId('lineage').getByText('in Otterbrook Makerspace, from r1', { exact: false }).waitFor();
+    await shown(page.getByTestId('lineage')).getByText('Forked 1 time').waitFor({ timeout: 30000 });
+    await shown(page.getByTestId('lineage')).getByText('in Otterbrook Makerspace, from r1', { exact: false }).waitFor();
   });
 
   it('downloads r1 as a DXF named <title>-r1.dxf that reads back in millimetres', async () => {
@@ -154,6 +168,29 @@ describe('library, revisions and forks in the browser', () => {
     const parsed = new DxfParser().parseSync(text);
     expect(parsed.header.$INSUNITS).toBe(4);
     expect(parsed.entities.length).toBeGreaterThanOrEqual(2);
+  });
+
+  it('adds a device to the catalog (a bad length is refused in place) and deletes it again', async () => {
+    const { page } = b;
+    const name = `Test slate ${Date.now().toString(36)}`;
+    await page.goto(baseUrl() + '/catalog');
+    await page.getByTestId('device-add').click();
+    await page.getByTestId('device-name').fill(name);
+    await page.getByTestId('device-width').fill('0');
+    await page.getByTestId('device-length').fill('150');
+    await page.getByTestId('device-thickness').fill('8');
+    await page.getByTestId('device-submit').click();
+    await page.getByText('Width must be more than 0 mm').waitFor({ timeout: 30000 });
+    expect(await page.getByTestId('device-name').inputValue()).toBe(name);
+    await page.getByTestId('device-width').fill('70');
+    await page.getByTestId('device-submit').click();
+    const table = page.getByRole('table', { name: 'Devices' });
+    await table.getByText(name).waitFor({ timeout: 30000 });
+    await table.getByText('70 × 150 × 8 mm').first().waitFor();
+    await screenshot(page, 'catalog-wide');
+    await page.getByRole('button', { name: `Delete ${name}` }).click();
+    await page.getByRole('button', { name: 'Yes, delete' }).click();
+    await table.getByText(name).waitFor({ state: 'detached', timeout: 30000 });
   });
 
   it('lists the design in the library: a table on wide screens, cards on a phone', async () => {
@@ -173,8 +210,8 @@ describe('library, revisions and forks in the browser', () => {
     await page.getByRole('list', { name: 'Designs' }).getByRole('link', { name: `Open ${TITLE}` }).waitFor({ timeout: 30000 });
     await screenshot(page, 'library-phone');
     await page.getByRole('link', { name: `Open ${TITLE}` }).click();
-    await page.getByTestId('selected-revision').waitFor({ timeout: 30000 });
-    await page.getByTestId('fit-notes').waitFor();
+    await shown(page.getByTestId('selected-revision')).waitFor({ timeout: 30000 });
+    await shown(page.getByTestId('fit-notes')).waitFor();
     await screenshot(page, 'design-phone');
     await page.setViewportSize(WIDE);
   });

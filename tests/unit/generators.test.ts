@@ -5,6 +5,7 @@ import { GENERATORS, getGenerator, runGenerator, type GeneratorResult } from '..
 import { CHARGER_INSERT_PARAMS } from '../../shared/generators/chargerInsert';
 import { defaultParams, paramsSchema, type ParamValues } from '../../shared/params';
 import { LAYERS } from '../../shared/schemas/geometry';
+import { contoursByFindChains } from '../../shared/geometry/summary';
 
 const gen = (id: string, params: Record<string, unknown> = {}): { params: ParamValues; result: GeneratorResult } => {
   const r = runGenerator(id, params);
@@ -207,12 +208,16 @@ describe('charger insert', () => {
     expect(val(along, 'movementAcross')).toBeCloseTo(199.6 * 0.0018, 3); // across the grain is now the length
   });
 
-  it('generates well under 5 ms per run (a later benchmark measures it properly)', () => {
+  it('generates well under 5 ms per run (median of 200; a later benchmark measures it properly)', () => {
     for (let i = 0; i < 20; i++) runGenerator('charger-insert', { cornerStyle: 'dogbone', padShape: 'rect' });
-    const n = 200;
-    const t0 = performance.now();
-    for (let i = 0; i < n; i++) runGenerator('charger-insert', { cornerStyle: i % 2 ? 'dogbone' : 'radius', padShape: 'rect', deviceWidth: 70 + (i % 10) });
-    expect((performance.now() - t0) / n).toBeLessThan(5);
+    const times: number[] = [];
+    for (let i = 0; i < 200; i++) {
+      const t0 = performance.now();
+      runGenerator('charger-insert', { cornerStyle: i % 2 ? 'dogbone' : 'radius', padShape: 'rect', deviceWidth: 70 + (i % 10) });
+      times.push(performance.now() - t0);
+    }
+    times.sort((a, b) => a - b);
+    expect(times[100]).toBeLessThan(5);
   });
 });
 
@@ -287,6 +292,8 @@ describe('charger insert properties (fast-check over random valid params)', () =
         }
         expect(byLayer.outline.chains).toHaveLength(1);
         expect(Math.abs(r.result.summary.area - (W * L - (4 - Math.PI) * R * R))).toBeLessThan(0.01);
+        const ref = contoursByFindChains(model, 'outline'); // makerjs's own chain finder agrees
+        expect([r.result.summary.closedContours, r.result.summary.openContours]).toEqual([ref.closed, ref.open]);
 
         // Pockets, reliefs and recesses inside the plate; the channel inside its bounding box.
         const pocketWall = wallFromDrawing(model, ['pocket', 'relief'], W, L, R);

@@ -7,7 +7,7 @@ import makerjs from 'makerjs';
 import { describe, expect, it } from 'vitest';
 import { modelToLayerPaths, mirrorForUnderside, previewFrame } from '../../shared/geometry/paths';
 import { dogboneCentreOffset, dogboneOvercut, reliefCircles } from '../../shared/geometry/relief';
-import { summarizeModel } from '../../shared/geometry/summary';
+import { contoursByFindChains, partLayerOf, summarizeModel } from '../../shared/geometry/summary';
 import { renderSvg } from '../../shared/geometry/svg';
 import { GENERATORS, runGenerator } from '../../shared/generators';
 import { GeometrySummary } from '../../shared/schemas/geometry';
@@ -69,6 +69,35 @@ describe('area of closed chains (pure geometry: closed forms from REFERENCES.md)
     expect(s).toMatchObject({ closedContours: 1, openContours: 3, layers: { outline: 4, marks: 2, guide: 2 }, area: 1500 });
     expect(s.extents).toEqual({ minX: 0, minY: 0, maxX: 50, maxY: 30, width: 50, height: 30 });
     expect(GeometrySummary.parse(s)).toEqual(s);
+  });
+});
+
+describe('our chain finder agrees with makerjs.model.findChains', () => {
+  const check = (model: makerjs.IModel) => {
+    const s = summarizeModel(model);
+    const ref = contoursByFindChains(model, partLayerOf(s.layers));
+    expect({ closed: s.closedContours, open: s.openContours }).toEqual({ closed: ref.closed, open: ref.open });
+    expect(s.area).toBeCloseTo(ref.area, 6);
+    return s;
+  };
+
+  it.each([
+    ['charger-insert', {}],
+    ['charger-insert', { cornerStyle: 'dogbone', padShape: 'rect', channelEdge: 'bottom' }],
+    ['taper-jig', {}],
+    ['splayed-box', { sides: 5 }],
+    ['half-lap', { angle: 35 }],
+  ])('on %s %j', (id, params) => {
+    const r = runGenerator(id, params);
+    expect(r.ok).toBe(true);
+    if (r.ok) check(r.result.model);
+  });
+
+  it('on open runs, reversed paths and a branching joint (which goes to makerjs)', () => {
+    const run: makerjs.IModel = { layer: 'guide', paths: { a: new makerjs.paths.Line([0, 0], [10, 0]), b: new makerjs.paths.Line([20, 5], [10, 0]), c: new makerjs.paths.Arc([25, 5], 5, 180, 0) } };
+    expect(check({ models: { run } }).openContours).toBe(1);
+    const tee: makerjs.IModel = { layer: 'outline', paths: { a: new makerjs.paths.Line([0, 0], [10, 0]), b: new makerjs.paths.Line([10, 0], [20, 0]), c: new makerjs.paths.Line([10, 0], [10, 10]) } };
+    check({ models: { tee, box: onLayer('outline', new makerjs.models.Rectangle(30, 30)) } });
   });
 });
 
