@@ -15,7 +15,7 @@ const TAGS = ['charger', 'cord', 'bedside', 'desk', 'shelf', 'drawer', 'hinge', 
 const MATERIALS = ['Birch ply', 'Walnut', 'White oak', 'MDF', 'Maple', 'Baltic ply', 'Ash'];
 const STATUSES = ['draft', 'trial', 'proven', 'retired'];
 
-const arr = (xs: string[]) => sql.raw(`ARRAY[${xs.map((x) => `'${x.replace(/'/g, "''")}'`).join(',')}]::text[]`);
+const arr = (xs: string[]) => sql.raw(`(ARRAY[${xs.map((x) => `'${x.replace(/'/g, "''")}'`).join(',')}]::text[])`);
 
 /** Seeds the library into `shopId`, authored by `authorId`. Returns the counts written. */
 export async function seedBenchLibrary(db: DB, shopId: string, authorId: string): Promise<{ designs: number; revisions: number }> {

@@ -226,11 +226,47 @@ function read(source: string, maxEntities: number): DxfDocument {
   return doc;
 }
 
-/** A numeric group value; NaN when it is not a number (the importer reports it with the entity). */
+const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15];
+
+/**
+ * A numeric group value; NaN when it is not a number (the importer reports it with the entity).
+ * Plain decimals of up to 15 digits are read directly: an exact integer mantissa divided by an
+ * exact power of ten is one correctly rounded operation, the same double Number() gives. Anything
+ * else (exponents, longer mantissas) goes through Number().
+ */
 function number(text: string, start: number, end: number): number {
-  const s = text.slice(start, end);
-  const v = Number(s);
-  return v === 0 && s.trim() === '' ? NaN : v;
+  let i = start;
+  while (i < end && text.charCodeAt(i) === 32) i++;
+  let neg = false;
+  let c = text.charCodeAt(i);
+  if (c === 45 || c === 43) {
+    neg = c === 45;
+    i++;
+  }
+  let mantissa = 0;
+  let digits = 0;
+  let fraction = 0;
+  while (i < end && (c = text.charCodeAt(i)) >= 48 && c <= 57) {
+    mantissa = mantissa * 10 + (c - 48);
+    digits++;
+    i++;
+  }
+  if (i < end && text.charCodeAt(i) === 46) {
+    i++;
+    while (i < end && (c = text.charCodeAt(i)) >= 48 && c <= 57) {
+      mantissa = mantissa * 10 + (c - 48);
+      digits++;
+      fraction++;
+      i++;
+    }
+  }
+  while (i < end && ((c = text.charCodeAt(i)) === 32 || c === 13 || c === 9)) i++;
+  if (i === end && digits > 0 && digits <= 15) {
+    const v = fraction ? mantissa / POW10[fraction] : mantissa;
+    return neg ? -v : v;
+  }
+  const s = text.slice(start, end).trim();
+  return s === '' ? NaN : Number(s);
 }
 
 /** The integer on text[start, end) (spaces and a trailing CR allowed), or null. */

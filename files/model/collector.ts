@@ -5,7 +5,7 @@
 import makerjs from 'makerjs';
 import type { LayerName } from '../../shared/schemas/geometry';
 import { FileRejected } from '../errors';
-import { type Affine, asSimilarity } from './affine';
+import { type Affine, asSimilarity, type Similarity } from './affine';
 
 export interface CollectorLimits {
   /** Largest |x| or |y| accepted, mm. */
@@ -18,7 +18,7 @@ export interface CollectorLimits {
 
 export const DEFAULT_LIMITS: CollectorLimits = {
   maxCoordinateMm: 1e6,
-  maxPaths: 1_000_000,
+  maxPaths: 500_000,
   // A router cuts to about ±0.05 mm at best (from memory): 0.01 mm keeps approximation far below it.
   chordToleranceMm: 0.01,
 };
@@ -38,7 +38,19 @@ export class PathCollector {
   /** Describes the entity or element being read, for error messages; set by the importer. */
   where: { toString(): string } = 'the drawing';
 
+  private lastMatrix: Affine | null = null;
+  private lastSimilarity: Similarity | null = null;
+
   constructor(readonly limits: CollectorLimits = DEFAULT_LIMITS) {}
+
+  /** Most paths share their entity list's matrix: remember the last one's similarity. */
+  private similarity(m: Affine): Similarity | null {
+    if (m !== this.lastMatrix) {
+      this.lastMatrix = m;
+      this.lastSimilarity = asSimilarity(m);
+    }
+    return this.lastSimilarity;
+  }
 
   private add(path: makerjs.IPath, layer: LayerName): void {
     if (this.count >= this.limits.maxPaths) {
@@ -48,7 +60,8 @@ export class PathCollector {
       );
     }
     path.layer = layer;
-    this.paths['p' + this.count++] = path;
+    // ids 0, 1, 2…: integer keys keep a map of 200 000 paths in V8's fast element storage
+    this.paths[this.count++] = path;
   }
 
   private check(v: number, what: string): void {
@@ -86,7 +99,7 @@ export class PathCollector {
   /** A full circle in local coordinates. */
   circle(m: Affine, layer: LayerName, cx: number, cy: number, r: number): void {
     this.check(r, 'radius');
-    const sim = asSimilarity(m);
+    const sim = this.similarity(m);
     if (sim) {
       const c = this.point(m, cx, cy);
       const radius = Math.abs(r) * sim.scale;
@@ -114,7 +127,7 @@ export class PathCollector {
       this.zeroLength++;
       return;
     }
-    const sim = asSimilarity(m);
+    const sim = this.similarity(m);
     if (sim) {
       const c = this.point(m, cx, cy);
       const radius = Math.abs(r) * sim.scale;

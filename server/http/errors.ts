@@ -65,6 +65,11 @@ export function errorHandler(log: { error: (o: object, m: string) => void }): Er
       // unknown Content-Encoding or charset, a broken gzip body) as http-errors with a 4xx status.
       status = Number(err.status ?? err.statusCode);
       body = clientHttpErrorBody(err, status);
+    } else if (err?.code === '22021' || err?.code === '22P05') {
+      // PostgreSQL text cannot hold U+0000 (character_not_in_repertoire / untranslatable_character):
+      // a NUL inside any text field reaches us here, after validation, and nothing was written.
+      status = 400;
+      body = { code: 'invalid_text', message: 'A text field contains a NUL character (\\u0000) or another character that cannot be stored; remove it and try again' };
     } else if (isDatabaseDown(err)) {
       status = 503;
       body = { code: 'unavailable', message: 'The database is unavailable; try again in a moment' };

@@ -49,6 +49,7 @@ describe('library, revisions and forks in the browser', () => {
 
   beforeAll(async () => {
     b = await openBrowser(WIDE);
+    b.page.on('pageerror', (e) => console.error('[page error]', e.message));
     shops = (await signIn(b.context)).shops;
   });
   afterAll(async () => b?.close());

@@ -387,6 +387,22 @@ describe('DXF entities (Autodesk DXF Reference, ENTITIES section)', () => {
     expect(r.warnings.join(' ')).toMatch(/paper space/);
   });
 
+  it('reads every decimal to the same double as Number() (the reader parses plain decimals itself)', () => {
+    const values = ['0.1', '-0.2', '123.456789012345', '1.5E+03', '  42', '-1e-5', '.5', '5.', '+7.25', '0.30000000000000004', '9007199254740993', '2.54000000000000000001'];
+    let seed = 12345; // a fixed linear congruential sequence of decimals of 1 to 17 digits
+    const next = () => (seed = (seed * 1103515245 + 12345) % 2147483648);
+    for (let i = 0; i < 300; i++) {
+      const digits = String(next()) + String(next());
+      const n = 1 + (next() % 17);
+      const point = next() % (n + 1);
+      const body = digits.slice(0, n);
+      values.push(`${next() % 2 ? '-' : ''}${body.slice(0, point)}.${body.slice(point)}`.replace(/^(-?)\.$/, '$10'));
+    }
+    const r = importDxf(dxf(values.map((v) => [0, 'LINE', 8, 'outline', 10, 1e5, 20, 1e5, 11, v, 21, 0])));
+    const ends = (Object.values(r.model.paths!) as makerjs.IPathLine[]).map((p) => p.end[0]);
+    expect(ends).toEqual(values.map((v) => Number(v.trim())));
+  });
+
   it('keeps open contours (the summary reports them) and drops zero-length paths with a count', () => {
     const r = importDxf(dxf([line(0, 0, 10, 0), line(3, 3, 3, 3)]));
     expect(summarizeModel(r.model).openContours).toBe(1);

@@ -207,18 +207,6 @@ describe('charger insert', () => {
     const along = gen('charger-insert', { stock: 'white-oak', cut: 'quartersawn', grain: 'width', mcMin: 6, mcMax: 7, fitClearance: 0.2 }).result;
     expect(val(along, 'movementAcross')).toBeCloseTo(199.6 * 0.0018, 3); // across the grain is now the length
   });
-
-  it('generates well under 5 ms per run (median of 200; a later benchmark measures it properly)', () => {
-    for (let i = 0; i < 20; i++) runGenerator('charger-insert', { cornerStyle: 'dogbone', padShape: 'rect' });
-    const times: number[] = [];
-    for (let i = 0; i < 200; i++) {
-      const t0 = performance.now();
-      runGenerator('charger-insert', { cornerStyle: i % 2 ? 'dogbone' : 'radius', padShape: 'rect', deviceWidth: 70 + (i % 10) });
-      times.push(performance.now() - t0);
-    }
-    times.sort((a, b) => a - b);
-    expect(times[100]).toBeLessThan(5);
-  });
 });
 
 // Property tests over random valid parameters (fast-check).
