@@ -147,10 +147,10 @@ async function main() {
       ? ['The query listDesigns sends (captured from Kysely):', '', '```sql', planSql.trim().replace(/\n\s+/g, '\n  '), '```', '', '`EXPLAIN (ANALYZE, BUFFERS)`, second run:', '', '```', plan.text, '```', '']
       : []),
   ].join('\n');
-  // A partial run (`npm run bench -- 3`) does not overwrite the full results.
-  const out = path.join(repoRoot, 'bench', only.length ? 'results.partial.md' : 'results.md');
+  // A partial run (`npm run bench -- 3`) writes to the temporary folder, not over the full results.
+  const out = only.length ? path.join(os.tmpdir(), 'jigwright-bench-results.partial.md') : path.join(repoRoot, 'bench', 'results.md');
   fs.writeFileSync(out, md);
-  console.log(`\n${table}\n\n${passed} of ${rows.length} rows meet their targets (${seconds.toFixed(0)} s). Written to ${path.relative(repoRoot, out)}.`);
+  console.log(`\n${table}\n\n${passed} of ${rows.length} rows meet their targets (${seconds.toFixed(0)} s). Written to ${out.startsWith(repoRoot) ? path.relative(repoRoot, out) : out}.`);
   return rows.every((r) => r.verdict === 'PASS');
 }
 

@@ -2,6 +2,7 @@
 // a private PostgreSQL cluster, the object-store fake and the mail fake in a temporary folder,
 // a fresh `bench` database, and the real server (`tsx server/main.ts`) on a free loopback port.
 import { spawn, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
 import pino from 'pino';
@@ -27,9 +28,38 @@ export interface BenchStack {
   stop(): Promise<void>;
 }
 
+/**
+ * Stops the cluster's postmaster by its pid (from postmaster.pid) with SIGINT, PostgreSQL's fast
+ * shutdown, and waits for it. Run as root, the helpers start postgres under `runuser`, which does
+ * not pass SIGINT on: their stop then waits 10 s and kills runuser, leaving postgres running.
+ */
+async function stopPostmaster(root: string): Promise<void> {
+  const pidFile = path.join(root, 'pg', 'pgdata', 'postmaster.pid');
+  if (!fs.existsSync(pidFile)) return;
+  const pid = Number(fs.readFileSync(pidFile, 'utf8').split('\n')[0]);
+  if (!Number.isInteger(pid) || pid <= 1) return;
+  const alive = () => {
+    try {
+      process.kill(pid, 0);
+      return true;
+    } catch {
+      return false;
+    }
+  };
+  if (!alive()) return;
+  process.kill(pid, 'SIGINT');
+  const deadline = Date.now() + 15_000;
+  while (alive() && Date.now() < deadline) await new Promise((r) => setTimeout(r, 50));
+}
+
 export async function startBenchStack(): Promise<BenchStack> {
   const services = await startTestServices('bench');
-  const stops: (() => Promise<void>)[] = [() => services.stop()];
+  const stops: (() => Promise<void>)[] = [
+    async () => {
+      await stopPostmaster(services.root);
+      await services.stop();
+    },
+  ];
   const stop = async () => {
     while (stops.length) {
       const s = stops.pop()!;
@@ -71,7 +101,9 @@ export async function startBenchStack(): Promise<BenchStack> {
         const childEnv = { ...process.env, ...env, PORT: String(port), HOST: '127.0.0.1', WEB_DIST: path.join(repoRoot, 'dist'), PUBLIC_URL: `http://127.0.0.1:${port}` };
         const child = spawn(path.join(repoRoot, 'node_modules', '.bin', 'tsx'), ['server/main.ts'], { cwd: repoRoot, env: childEnv, stdio: ['ignore', 'inherit', 'inherit'] });
         stops.push(() => stopChild(child));
-        await waitForPort(port, 60_000);
+        const exited = new Promise<never>((_, reject) => child.once('exit', (code) => reject(new Error(`the server exited (code ${code}) before it listened`))));
+        exited.catch(() => undefined); // it also exits when stopped at the end
+        await Promise.race([waitForPort(port, 60_000), exited]);
         return { baseUrl: `http://127.0.0.1:${port}`, child };
       },
       stop,

@@ -63,6 +63,10 @@ export interface DesignsTable {
   author_id: string | null;
   forked_from_design_id: string | null;
   forked_from_revision_id: string | null;
+  /** Lineage to a design outside an imported archive, in words (migration 0006). */
+  forked_from_text: ColumnType<string | null, string | null | undefined, string | null>;
+  /** The author's name from an imported archive, when they have no account in this shop (0006). */
+  author_name: ColumnType<string | null, string | null | undefined, string | null>;
   latest_revision_number: Generated<number>;
   latest_status: Generated<string>;
   created_at: Timestamp;
@@ -82,6 +86,8 @@ export interface RevisionsTable {
   fit_notes: Generated<unknown>;
   summary: unknown;
   units: Generated<'mm' | 'in'>;
+  /** The author's name from an imported archive, when they have no account in this shop (0006). */
+  author_name: ColumnType<string | null, string | null | undefined, string | null>;
   created_at: Timestamp;
 }
 export interface RevisionFilesTable {
@@ -100,6 +106,8 @@ export interface ActivityTable {
   actor_id: string | null;
   action: string;
   detail: Generated<unknown>;
+  /** The actor's name from an imported archive, when they have no account in this shop (0006). */
+  actor_name: ColumnType<string | null, string | null | undefined, string | null>;
   created_at: Timestamp;
 }
 export interface DevicesTable {
@@ -139,6 +147,8 @@ export interface CutLogsTable {
   measured_length_mm: number | null;
   result: 'tight' | 'good' | 'loose';
   photo_key: string | null;
+  /** The author's name from an imported archive, when they have no account in this shop (0006). */
+  author_name: ColumnType<string | null, string | null | undefined, string | null>;
   created_at: Timestamp;
 }
 

@@ -11,6 +11,28 @@ export interface ObjectStoreConfig {
   bucket: string;
 }
 
+/**
+ * The store could not be reached (refused, reset, timed out). The API answers 503 for it, never
+ * "something went wrong" and never the database's message (server/http/errors.ts).
+ */
+export class StorageUnavailable extends Error {
+  override readonly name = 'StorageUnavailable';
+  constructor(readonly cause: unknown) {
+    super(`object store unavailable: ${(cause as Error)?.message ?? String(cause)}`);
+  }
+}
+
+const NETWORK = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'EHOSTUNREACH', 'ENETUNREACH', 'ENOTFOUND', 'EAI_AGAIN', 'ECONNABORTED']);
+async function reaching<T>(p: Promise<T>): Promise<T> {
+  try {
+    return await p;
+  } catch (e) {
+    const code = (e as { code?: string })?.code;
+    if ((code && NETWORK.has(code)) || /socket hang up/i.test(String((e as Error)?.message))) throw new StorageUnavailable(e);
+    throw e;
+  }
+}
+
 /** The object store behind the library's files, through the minio SDK (S3-compatible). */
 export class ObjectStore {
   readonly client: Client;
@@ -43,16 +65,15 @@ export class ObjectStore {
 
   /** Stores a buffer in one part (the local fake has no multipart listing). */
   async put(key: string, body: Buffer, contentType: string): Promise<void> {
-    await this.client.putObject(this.bucket, key, body, body.length, { 'Content-Type': contentType });
+    await reaching(this.client.putObject(this.bucket, key, body, body.length, { 'Content-Type': contentType }));
   }
 
   async get(key: string): Promise<Buffer> {
-    const stream = await this.client.getObject(this.bucket, key);
-    return streamToBuffer(stream);
+    return reaching(this.client.getObject(this.bucket, key).then(streamToBuffer));
   }
 
   async stream(key: string): Promise<Readable> {
-    return this.client.getObject(this.bucket, key);
+    return reaching(this.client.getObject(this.bucket, key));
   }
 
   async exists(key: string): Promise<boolean> {
@@ -67,7 +88,7 @@ export class ObjectStore {
 
   async remove(keys: string[]): Promise<void> {
     if (keys.length === 0) return;
-    await Promise.all(keys.map((k) => this.client.removeObject(this.bucket, k)));
+    await reaching(Promise.all(keys.map((k) => this.client.removeObject(this.bucket, k))));
   }
 
   async list(prefix = ''): Promise<string[]> {

@@ -31,7 +31,7 @@ export function sniffUpload(buf: Buffer): UploadKind {
 
 /**
  * The upload as text: UTF-8 when it is valid UTF-8 (byte-order mark removed), otherwise Latin-1,
- * which older DXF files use. Refuses empty and binary files. Importers should read this, not
+ * which older DXF files use (an SVG only when it declares it). Refuses empty and binary files. Importers should read this, not
  * `buf.toString('utf8')`, so Latin-1 files are not mangled.
  */
 export function uploadText(buf: Buffer): string {
@@ -60,6 +60,10 @@ export function uploadText(buf: Buffer): string {
     text = UTF8.decode(buf);
   } catch {
     text = buf.toString('latin1');
+    // XML without an encoding declaration is UTF-8 (W3C XML 1.0 §4.3.3); only a declared Latin-1 SVG may be read as such
+    if (looksLikeSvg(text.replace(/^\s+/, '').slice(0, 4096)) && !/^\s*<\?xml[^>]*\bencoding\s*=\s*["'](iso-8859-1|latin-?1|windows-1252)["']/i.test(text)) {
+      throw new FileRejected('not_text', 'The SVG file is not valid UTF-8 text, and it does not declare another encoding. Save it as UTF-8 and upload it again.');
+    }
   }
   return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
 }

@@ -5,7 +5,7 @@ import express from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { Deps } from './deps';
-import { apiNotFound, errorHandler } from './http/errors';
+import { apiNotFound, errorHandler, HttpError } from './http/errors';
 import { ApiRouter } from './http/router';
 import { healthRoutes } from './health/routes';
 import { generatorRoutes } from './generators/routes';
@@ -16,6 +16,7 @@ import { catalogRoutes } from './catalog/routes';
 import { cutRoutes } from './cuts/routes';
 import { designRoutes } from './designs/routes';
 import { revisionRoutes } from './revisions/routes';
+import { archiveRoutes } from './archive/routes';
 
 /** Every feature's routes, in one list: the route-coverage test reads the same list. */
 export function buildApi(deps: Deps): ApiRouter {
@@ -29,6 +30,7 @@ export function buildApi(deps: Deps): ApiRouter {
   revisionRoutes(api);
   catalogRoutes(api);
   cutRoutes(api);
+  archiveRoutes(api);
   return api;
 }
 
@@ -60,7 +62,7 @@ export function createApp(deps: Deps) {
   app.use(cookieParser());
 
   const api = buildApi(deps);
-  app.use('/api', express.json({ limit: '256kb' }), api.router);
+  app.use('/api', express.json({ limit: '256kb' }), refuseUnreadBodies, api.router);
   app.use('/api', apiNotFound);
 
   const dist = path.resolve(deps.config.webDist);
@@ -71,3 +73,15 @@ export function createApp(deps: Deps) {
   app.use(errorHandler(deps.log));
   return { app, api };
 }
+
+/**
+ * A body the API would not read (text/plain, a form post…) is refused instead of silently
+ * ignored: every route takes JSON, and uploads take multipart/form-data (RFC 7578).
+ */
+const refuseUnreadBodies: express.RequestHandler = (req, _res, next) => {
+  const hasBody = Number(req.headers['content-length'] ?? 0) > 0 || req.headers['transfer-encoding'] !== undefined;
+  if (hasBody && !req.is(['application/json', 'multipart/form-data'])) {
+    return next(new HttpError(415, 'unsupported_media_type', 'Send the request body as JSON (Content-Type: application/json), or files as multipart/form-data'));
+  }
+  next();
+};

@@ -19,6 +19,10 @@ const Env = z.object({
   SESSION_SECRET: z.string().default('dev-only-secret-change-me-0123456789abcdef'),
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(10),
   UPLOAD_MAX_BYTES: z.coerce.number().int().min(1024).default(20 * 1024 * 1024),
+  // A shop archive (server/archive) holds every revision's files: it may be far larger than one upload.
+  ARCHIVE_MAX_BYTES: z.coerce.number().int().min(1024).default(2 * 1024 * 1024 * 1024),
+  // What an imported archive may unpack to (a guard against decompression bombs).
+  ARCHIVE_MAX_UNPACKED_BYTES: z.coerce.number().int().min(1024).default(8 * 1024 * 1024 * 1024),
   WEB_DIST: z.string().default('dist'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   NODE_ENV: z.string().default('development'),
@@ -57,6 +61,8 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     sessionSecret: secret,
     bcryptCost: e.BCRYPT_COST,
     uploadMaxBytes: e.UPLOAD_MAX_BYTES,
+    archiveMaxBytes: e.ARCHIVE_MAX_BYTES,
+    archiveMaxUnpackedBytes: e.ARCHIVE_MAX_UNPACKED_BYTES,
     webDist: e.WEB_DIST,
     logLevel: e.LOG_LEVEL,
     production: e.NODE_ENV === 'production',

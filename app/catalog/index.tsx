@@ -90,11 +90,11 @@ function CatalogList<T extends { id: string; name: string }>({ items, columns, a
     <View style={styles.table} role="table" aria-label={label}>
       <View style={[styles.tr, styles.thead]} role="row">
         {columns.map((c) => (
-          <Text key={c.label} role="columnheader" style={[styles.th, { flex: c.flex }]}>
-            {c.label}
-          </Text>
+          <View key={c.label} role="columnheader" style={[styles.td, { flex: c.flex }]}>
+            <Text style={styles.th}>{c.label}</Text>
+          </View>
         ))}
-        {actions ? <View style={{ flex: 1.2 }} /> : null}
+        {actions ? <View style={[styles.td, { flex: 1.2 }]} /> : null}
       </View>
       {items.map((item) => (
         <View key={item.id} style={styles.tr} role="row">
@@ -190,6 +190,7 @@ const styles = StyleSheet.create({
   table: { borderWidth: 1, borderColor: colors.line, borderRadius: 6, overflow: 'hidden' },
   thead: { backgroundColor: colors.sunk },
   tr: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: colors.line, alignItems: 'center' },
-  th: { fontFamily: fonts.medium, fontSize: 13, color: colors.inkMuted, paddingHorizontal: space.md, paddingVertical: space.sm },
-  td: { paddingHorizontal: space.md, paddingVertical: space.sm },
+  th: { fontFamily: fonts.medium, fontSize: 13, color: colors.inkMuted },
+  // A zero basis makes every row share out the width the same way, so the columns line up.
+  td: { paddingHorizontal: space.md, paddingVertical: space.sm, flexBasis: 0, minWidth: 0 },
 });

@@ -54,8 +54,9 @@ export function useDesignList(shopId: string | null | undefined, filters: Librar
       return api<DesignPage>(`/shops/${shopId}/designs?${params}`, { signal });
     },
     getNextPageParam: (last) => last.nextCursor,
-    // Keep the old rows on screen while a new search runs, instead of flashing an empty list.
-    placeholderData: (prev) => prev,
+    // Keep the old rows on screen while a new search in the same shop runs, instead of flashing
+    // an empty list; another shop's rows are never shown in their place.
+    placeholderData: (prev, prevQuery) => (prevQuery?.queryKey[2] === (shopId ?? '-') ? prev : undefined),
   });
 }
 

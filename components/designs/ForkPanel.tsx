@@ -36,7 +36,7 @@ export function ForkPanel({ design, initialRevisionId, onClose }: { design: Desi
         <Segmented label="Shop to fork into" options={targets.map((s) => ({ value: s.id, label: s.id === design.shopId ? `${s.name} (this shop)` : s.name }))} value={shopId} onChange={setShopId} />
         {fieldErrors.targetShopId ? <FieldError message={fieldErrors.targetShopId} /> : null}
       </View>
-      <TextField label="Title of the fork" value={title} onChangeText={setTitle} error={fieldErrors.title} testID="fork-title" />
+      <TextField label="Title of the fork" value={title} onChangeText={setTitle} error={fieldErrors.title} hint="Left empty, the fork keeps this design’s title." testID="fork-title" />
       <Text style={theme.muted}>The fork starts at r1 as a draft, with the same drawing and fit notes, and links back here.</Text>
       {fork.isError && Object.keys(fieldErrors).length === 0 ? <Notice title="Not forked">{fork.error.message}</Notice> : null}
       <View style={[theme.row, { flexWrap: 'wrap' }]}>

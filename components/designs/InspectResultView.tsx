@@ -66,7 +66,7 @@ export function InspectResultView({ result, units, fileName }: { result: Inspect
 function Fact({ label, children }: { label: string; children: string }) {
   return (
     <View style={styles.fact}>
-      <Text style={[theme.label, { color: colors.inkMuted, width: 80 }]}>{label}</Text>
+      <Text style={[theme.label, { color: colors.inkMuted, width: 110 }]}>{label}</Text>
       <Text style={[theme.body, { flex: 1, minWidth: 160 }]}>{children}</Text>
     </View>
   );

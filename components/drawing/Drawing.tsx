@@ -65,8 +65,8 @@ export interface DrawingProps {
 }
 
 // Room around the part, in screen pixels, for the dimension lines and their figures.
-const PAD = { top: 12, left: 12, right: 46, bottom: 44 };
-const PAD_BARE = { top: 8, left: 8, right: 8, bottom: 8 };
+export const PAD = { top: 12, left: 12, right: 46, bottom: 44 };
+export const PAD_BARE = { top: 8, left: 8, right: 8, bottom: 8 };
 const DIM_COLOR = colors.inkMuted;
 
 /** Draws a model's layer paths to fit the available width, with overall dimensions and a legend. */

@@ -7,6 +7,11 @@ import { colors, fonts, space, theme, useBreakpoint } from '../ui';
 import { NAV_ITEMS } from './nav';
 
 
+/** An entry is current on its own page and on the pages below it (Generators on /generators/…). */
+function isActive(pathname: string, href: string): boolean {
+  return pathname === href || (href !== '/' && pathname.startsWith(`${href}/`));
+}
+
 /** The frame around every screen: brand bar with navigation, then a scrolling content column. */
 export function AppFrame({ children, title }: { children: ReactNode; title?: string }) {
   const { isWide } = useBreakpoint();
@@ -23,13 +28,14 @@ export function AppFrame({ children, title }: { children: ReactNode; title?: str
             <Text style={styles.brandText}>Jigwright</Text>
           </Pressable>
         </Link>
-        <View style={styles.nav}>
+        {/* On phones the entries scroll sideways in one row instead of wrapping over three. */}
+        <ScrollView horizontal={!isWide} showsHorizontalScrollIndicator={false} contentContainerStyle={[styles.nav, !isWide && styles.navPhone]}>
           {navItems.map((n) => (
-            <Link key={n.href} href={n.href as never} style={[styles.navLink, pathname === n.href && styles.navActive]}>
+            <Link key={n.href} href={n.href as never} style={[styles.navLink, isActive(pathname, n.href) && styles.navActive]}>
               {n.label}
             </Link>
           ))}
-        </View>
+        </ScrollView>
         <ShopSwitcher />
       </View>
       <ScrollView contentContainerStyle={theme.content}>
@@ -56,6 +62,7 @@ const styles = StyleSheet.create({
   mark: { width: 18, height: 18, borderRadius: 3, borderWidth: 3, borderColor: colors.copper, transform: [{ rotate: '45deg' }] },
   brandText: { fontFamily: fonts.bold, fontSize: 20, color: colors.paper, letterSpacing: 0.5 },
   nav: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg },
+  navPhone: { flexWrap: 'nowrap', paddingRight: space.lg },
   navLink: { fontFamily: fonts.medium, fontSize: 15, color: colors.pineSoft, paddingVertical: space.xs },
   navActive: { color: colors.paper, textDecorationLine: 'underline' },
 });

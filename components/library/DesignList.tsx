@@ -164,10 +164,11 @@ const styles = StyleSheet.create({
   table: { backgroundColor: colors.surface, borderWidth: 1, borderColor: colors.line, borderRadius: 8, overflow: 'hidden' },
   thead: { backgroundColor: colors.sunk },
   tr: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: colors.line, alignItems: 'stretch' },
-  th: { paddingHorizontal: space.md, paddingVertical: space.sm, justifyContent: 'center' },
+  // A zero basis makes every row share out the width the same way, so the columns line up.
+  th: { paddingHorizontal: space.md, paddingVertical: space.sm, justifyContent: 'center', flexBasis: 0 },
   thHover: { backgroundColor: colors.line },
   thText: { fontFamily: fonts.medium, fontSize: 13, color: colors.inkMuted },
   thActive: { color: colors.ink, fontFamily: fonts.bold },
-  td: { paddingHorizontal: space.md, paddingVertical: space.sm, justifyContent: 'center', minWidth: 0 },
+  td: { paddingHorizontal: space.md, paddingVertical: space.sm, justifyContent: 'center', minWidth: 0, flexBasis: 0 },
   titleLink: { fontFamily: fonts.bold, fontSize: 15, lineHeight: 21, color: colors.pine, textDecorationLine: 'underline' },
 });

@@ -69,7 +69,7 @@ export function LibraryFilters({ filters, onChange, compact }: { filters: Filter
       ) : null}
       {open || !compact ? (
         <View style={styles.filters}>
-          <View style={styles.line}>
+          <View style={compact ? styles.stack : styles.line}>
             <View style={styles.group}>
               <Text style={theme.label}>Kind</Text>
               <Segmented
@@ -89,7 +89,7 @@ export function LibraryFilters({ filters, onChange, compact }: { filters: Filter
               />
             </View>
           </View>
-          <View style={styles.line}>
+          <View style={compact ? styles.stack : styles.line}>
             <TextField label="Material" value={material} onChangeText={setMaterial} placeholder="e.g. walnut ply" width={compact ? '100%' : 200} testID="library-material" />
             <TextField label="Tag" value={tag} onChangeText={setTag} placeholder="e.g. charger" width={compact ? '100%' : 200} autoCapitalize="none" testID="library-tag" />
             <View style={styles.group}>
@@ -136,7 +136,9 @@ export function LibraryFilters({ filters, onChange, compact }: { filters: Filter
 const styles = StyleSheet.create({
   wrap: { gap: space.md },
   filters: { gap: space.md },
-  group: { gap: 4 },
+  group: { gap: 4, maxWidth: '100%' },
   // Groups sit side by side while they fit and wrap under each other on a phone.
   line: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg, alignItems: 'flex-end' },
+  // On a phone each group takes the full width, so its buttons wrap inside it.
+  stack: { gap: space.md },
 });

@@ -48,9 +48,10 @@ export function Button({
 /** A link drawn as a button, for moves to another screen. */
 export function LinkButton({ href, label, tone = 'primary', testID }: { href: string; label: string; tone?: ButtonTone; testID?: string }) {
   return (
-    // Link's asChild drops a style function, so this button's style is a plain array (no hover shade).
+    // Link's asChild hands the style to the DOM as it is: it must be one plain object (no array,
+    // no function), so this button has no hover shade.
     <Link href={href as never} asChild>
-      <Pressable accessibilityRole="link" testID={testID} style={[styles.button, toneStyle[tone]]}>
+      <Pressable accessibilityRole="link" testID={testID} style={StyleSheet.flatten([styles.button, toneStyle[tone]])}>
         <Text style={[styles.buttonText, toneText[tone]]}>{label}</Text>
       </Pressable>
     </Link>

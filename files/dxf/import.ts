@@ -68,10 +68,10 @@ export function importDxf(text: string, opts: DxfImportOptions = {}): ImportResu
   }
 
   // Without units we still read everything (so other problems surface first), in file units.
-  const reader = new DxfReader(doc.blocks, { ...DEFAULT_LIMITS, ...opts.limits });
+  const drawer = new EntityDrawer(doc.blocks, { ...DEFAULT_LIMITS, ...opts.limits });
   const entities = doc.entities;
-  reader.drawList(entities, scaling(unit ? unit.mm : 1), undefined, 0, []);
-  const model = reader.finish();
+  drawer.drawList(entities, scaling(unit ? unit.mm : 1), undefined, 0, []);
+  const model = drawer.finish();
 
   if (!unit) {
     const ext = makerjs.measure.modelExtents(model);
@@ -83,7 +83,7 @@ export function importDxf(text: string, opts: DxfImportOptions = {}): ImportResu
 
   const entityCounts: Record<string, number> = {};
   for (const e of entities) if (!SUB_ENTITIES.has(e.type)) entityCounts[e.type] = (entityCounts[e.type] ?? 0) + 1;
-  return { model, sourceUnits: unit.units, unitsFrom, entityCounts, warnings: [...warnings, ...reader.warnings()] };
+  return { model, sourceUnits: unit.units, unitsFrom, entityCounts, warnings: [...warnings, ...drawer.warnings()] };
 }
 
 /** Names the entity being read, for messages: the LINE at line 120 (handle 2A) in block "JIG". */
@@ -99,7 +99,7 @@ class EntityRef {
   }
 }
 
-class DxfReader {
+class EntityDrawer {
   private readonly out: PathCollector;
   private readonly ref = new EntityRef();
   private drawable = 0;

@@ -13,7 +13,7 @@ import { FALLBACK_LAYER, matchLayer } from '../layers';
 import { type Affine, compose, IDENTITY, maxStretch, translation } from '../model/affine';
 import { type CollectorLimits, DEFAULT_LIMITS, PathCollector } from '../model/collector';
 import type { ImportResult, SourceUnits, UnitsFrom } from '../types';
-import { normalizePathData, PathDataError } from './pathData';
+import { type NormalizedPath, normalizePathData, PathDataError } from './pathData';
 import { parseTransform, TransformError } from './transform';
 
 export interface SvgImportOptions {
@@ -128,6 +128,8 @@ function textOf(node: XNode): string {
 function checkAttribute(element: string, key: string, value: string): void {
   const name = localName(key).toLowerCase();
   if (name.startsWith('on')) throw unsafe(`an event-handler attribute (${key} on <${element}>)`);
+  // <set>/<animate attributeName="onclick" | "href"> adds a handler or a link at run time (OWASP XSS Filter Evasion Cheat Sheet).
+  if (name === 'attributename' && /^\s*((\w+:)?on|(\w+:)?href\s*$)/i.test(value)) throw unsafe(`an animation that sets ${value.trim().slice(0, 30)} (on <${element}>)`);
   const compact = value.replace(/[\s\u0000-\u001f]/g, '').toLowerCase();
   if (compact.includes('javascript:') || compact.includes('vbscript:')) throw unsafe(`a script link (in ${key} on <${element}>)`);
   if ((name === 'href' || name === 'src') && !isLocalReference(value)) throw unsafe(`a link to an outside resource (${key}="${value.slice(0, 60)}" on <${element}>)`);
@@ -218,6 +220,7 @@ class SvgDrawing {
   private shapes = 0;
   private hidden = 0;
   private emptyShapes = 0;
+  private flattened = 0;
   private readonly notCut = new Map<string, number>();
   private readonly unknown = new Map<string, number>();
 
@@ -378,16 +381,17 @@ class SvgDrawing {
   }
 
   private pathData(d: string, m: Affine, layer: LayerName): void {
-    let normalized: string;
+    // curves are flattened in user units: the tolerance shrinks by how much the transform stretches
+    const tolerance = this.out.limits.chordToleranceMm / (maxStretch(m) || 1);
+    let normalized: NormalizedPath;
     try {
-      normalized = normalizePathData(d);
+      normalized = normalizePathData(d, tolerance);
     } catch (e) {
       if (e instanceof PathDataError) throw invalid(`the path data of ${String(this.ref)} is not valid (${e.message})`);
       throw e;
     }
-    const stretch = maxStretch(m);
-    const bezierAccuracy = Math.max(1e-9, this.out.limits.chordToleranceMm / (stretch || 1));
-    const parsed = makerjs.importer.fromSVGPathData(normalized, { bezierAccuracy });
+    this.flattened += normalized.flattened;
+    const parsed = makerjs.importer.fromSVGPathData(normalized.d);
     const total = compose(m, UNFLIP);
     makerjs.model.walk(parsed, {
       onPath: (wp) => {
@@ -424,7 +428,8 @@ class SvgDrawing {
     if (this.hidden) w.push(`${this.hidden} hidden element${this.hidden === 1 ? ' was' : 's were'} left out (display: none).`);
     if (this.emptyShapes) w.push(`${this.emptyShapes} empty shape${this.emptyShapes === 1 ? ' was' : 's were'} left out (zero size or no points).`);
     if (this.out.zeroLength) w.push(`${this.out.zeroLength} zero-length path${this.out.zeroLength === 1 ? ' was' : 's were'} dropped.`);
-    if (this.out.approximated) w.push(`${this.out.approximated} ellipse${this.out.approximated === 1 ? ' or stretched curve was' : 's or stretched curves were'} replaced by straight segments within ${this.out.limits.chordToleranceMm} mm.`);
+    const curves = this.out.approximated + this.flattened;
+    if (curves) w.push(`${curves} curve${curves === 1 ? ' was' : 's were'} replaced by straight segments within ${this.out.limits.chordToleranceMm} mm.`);
     return w;
   }
 }

@@ -49,10 +49,15 @@ export async function logActivity(
 function encodeCursor(v: string, id: string) {
   return Buffer.from(JSON.stringify([v, id])).toString('base64url');
 }
-function decodeCursor(c: string): [string, string] {
+const CURSOR_ID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+const CURSOR_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d+)?Z$/;
+/** The cursor's parts are cast in SQL (::uuid, ::timestamptz), so both are checked here first. */
+function decodeCursor(c: string, sort: LibraryQuery['sort']): [string, string] {
   try {
     const parsed = JSON.parse(Buffer.from(c, 'base64url').toString('utf8'));
-    if (Array.isArray(parsed) && parsed.length === 2 && parsed.every((x) => typeof x === 'string')) return parsed as [string, string];
+    if (Array.isArray(parsed) && parsed.length === 2 && parsed.every((x) => typeof x === 'string') && CURSOR_ID.test(parsed[1])) {
+      if (sort === 'title' ? !parsed[0].includes('\u0000') : CURSOR_TIME.test(parsed[0]) && Number.isFinite(Date.parse(parsed[0]))) return parsed as [string, string];
+    }
   } catch {
     /* fall through */
   }
@@ -85,11 +90,14 @@ export async function listDesigns(db: Q, shopId: string, q: LibraryQuery): Promi
     if (tsq) conds.push(sql`d.search @@ to_tsquery('simple', ${tsq})`);
   }
   if (q.cursor) {
-    const [v, id] = decodeCursor(q.cursor);
+    const [v, id] = decodeCursor(q.cursor, q.sort);
     const value = q.sort === 'title' ? sql`${v}` : sql`${v}::timestamptz`;
     conds.push(sql`(${sortExpr}, d.id) ${cmp} (${value}, ${id}::uuid)`);
   }
   const where = sql.join(conds, sql` AND `);
+  // The page is chosen first (filter, sort, limit on designs alone), then only its rows are joined
+  // to their latest revision and fork parent: joining before the LIMIT looked up every matching
+  // design's revision and parent (EXPLAIN in bench/results.md, row 3).
   const rows = await sql<{
     id: string;
     kind: DesignListItem['kind'];
@@ -107,14 +115,19 @@ export async function listDesigns(db: Q, shopId: string, q: LibraryQuery): Promi
     parent_title: string | null;
   }>`
     SELECT d.id, d.kind, d.title, d.description, d.tags, d.material, d.latest_revision_number, d.latest_status,
-           d.updated_at, d.created_at, ${sortExpr} AS sort_value,
+           d.updated_at, d.created_at, d.sort_value,
            r.id AS latest_revision_id, p.id AS parent_id, p.title AS parent_title
-    FROM designs d
+    FROM (
+      SELECT d.id, d.kind, d.title, d.description, d.tags, d.material, d.latest_revision_number, d.latest_status,
+             d.updated_at, d.created_at, d.forked_from_design_id, ${sortExpr} AS sort_value
+      FROM designs d
+      WHERE ${where}
+      ORDER BY ${sortExpr} ${order}, d.id ${order}
+      LIMIT ${q.limit + 1}
+    ) d
     LEFT JOIN revisions r ON r.design_id = d.id AND r.number = d.latest_revision_number
     LEFT JOIN designs p ON p.id = d.forked_from_design_id
-    WHERE ${where}
-    ORDER BY ${sortExpr} ${order}, d.id ${order}
-    LIMIT ${q.limit + 1}
+    ORDER BY d.sort_value ${order}, d.id ${order}
   `.execute(db);
   const list = rows.rows.slice(0, q.limit);
   const last = list[list.length - 1];
@@ -145,7 +158,7 @@ export async function getDesignDetail(db: Q, designId: string): Promise<DesignDe
     .selectFrom('designs as d')
     .innerJoin('shops as s', 's.id', 'd.shop_id')
     .leftJoin('users as u', 'u.id', 'd.author_id')
-    .select(['d.id', 'd.shop_id', 's.name as shop_name', 'd.kind', 'd.title', 'd.description', 'd.tags', 'd.material', 'd.created_at', 'd.updated_at', 'd.author_id', 'u.name as author_name', 'd.forked_from_design_id', 'd.forked_from_revision_id'])
+    .select(['d.id', 'd.shop_id', 's.name as shop_name', 'd.kind', 'd.title', 'd.description', 'd.tags', 'd.material', 'd.created_at', 'd.updated_at', 'd.author_id', 'u.name as author_name', 'd.forked_from_design_id', 'd.forked_from_revision_id', 'd.forked_from_text'])
     .where('d.id', '=', designId)
     .executeTakeFirst();
   if (!d) return null;
@@ -192,6 +205,7 @@ export async function getDesignDetail(db: Q, designId: string): Promise<DesignDe
     forkedFrom: parent
       ? { designId: parent.id, designTitle: parent.title, shopName: parent.shop_name, revisionId: parent.rev_id ?? null, revisionNumber: parent.rev_number ?? null }
       : null,
+    forkedFromText: d.forked_from_text ?? null,
     forks: forks.map((f) => ({ designId: f.id, title: f.title, shopName: f.shop_name, fromRevisionNumber: f.rev_number ?? null })),
     revisions,
     activity: activity.map((a) => ({ id: String(a.id), action: a.action, actor: a.actor ?? null, detail: a.detail as Record<string, unknown>, createdAt: a.created_at.toISOString() })),

@@ -70,6 +70,9 @@ export function errorHandler(log: { error: (o: object, m: string) => void }): Er
       // a NUL inside any text field reaches us here, after validation, and nothing was written.
       status = 400;
       body = { code: 'invalid_text', message: 'A text field contains a NUL character (\\u0000) or another character that cannot be stored; remove it and try again' };
+    } else if (err?.name === 'StorageUnavailable') {
+      status = 503;
+      body = { code: 'storage_unavailable', message: 'The file store is not answering; try again in a moment' };
     } else if (isDatabaseDown(err)) {
       status = 503;
       body = { code: 'unavailable', message: 'The database is unavailable; try again in a moment' };
@@ -77,7 +80,12 @@ export function errorHandler(log: { error: (o: object, m: string) => void }): Er
       body = { code: 'internal', message: 'Something went wrong on our side' };
     }
     if (status >= 500) log.error({ err, url: req.originalUrl }, 'request failed');
-    if (!res.headersSent) res.status(status).json({ error: body });
+    if (!res.headersSent) {
+      // A route may have set a file's headers before it failed: the error is JSON, and never cached.
+      for (const h of ['Content-Type', 'Content-Disposition', 'Content-Length', 'Cache-Control', 'ETag', 'Last-Modified']) res.removeHeader(h);
+      res.setHeader('Cache-Control', 'no-store');
+      res.status(status).json({ error: body });
+    }
     else res.end();
   };
 }

@@ -1,4 +1,5 @@
 import type { Request, Response } from 'express';
+import { pipeline } from 'node:stream/promises';
 import multer from 'multer';
 import { sql } from 'kysely';
 import { getGenerator, runGenerator } from '../../shared/generators';
@@ -146,7 +147,12 @@ export function revisionRoutes(api: ApiRouter): void {
     res.setHeader('Content-Length', String(file.bytes));
     res.setHeader('Content-Security-Policy', "default-src 'none'; style-src 'unsafe-inline'; sandbox");
     const stream = await objects.stream(file.object_key);
-    stream.pipe(res);
+    // A store that fails mid-file must cut this download off, not crash the API (an 'error' event
+    // with no listener ends the process).
+    await pipeline(stream, res).catch((err) => {
+      api.deps.log.warn({ err }, 'download interrupted');
+      res.destroy();
+    });
   });
 
   // The generated preview (never an uploaded SVG as-is), for thumbnails and the drawing view.

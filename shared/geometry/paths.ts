@@ -30,7 +30,8 @@ export function previewFrame(model: makerjs.IModel): PreviewFrame {
 export function modelToLayerPaths(model: makerjs.IModel): LayerPath[] {
   const ext = makerjs.measure.modelExtents(model);
   if (!ext) return [];
-  const byLayer = makerjs.exporter.toSVGPathData(model, { byLayers: true, fillRule: 'nonzero', origin: [ext.low[0], ext.high[1]] }) as makerjs.exporter.IPathDataByLayerMap;
+  // makerjs adds origin[0] to x and maps y to origin[1] − y: (−minX, maxY) puts the top-left at (0, 0).
+  const byLayer = makerjs.exporter.toSVGPathData(model, { byLayers: true, fillRule: 'nonzero', origin: [-ext.low[0], ext.high[1]] }) as makerjs.exporter.IPathDataByLayerMap;
   const known = LAYERS.filter((l) => byLayer[l]).map((layer) => ({ layer, d: byLayer[layer] as string }));
   const others = Object.keys(byLayer)
     .filter((l) => !(LAYERS as readonly string[]).includes(l) && byLayer[l])

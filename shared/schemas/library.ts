@@ -196,6 +196,8 @@ export interface DesignDetail {
   createdAt: string;
   updatedAt: string;
   forkedFrom: { designId: string; designTitle: string; shopName: string; revisionId: string | null; revisionNumber: number | null } | null;
+  /** Lineage kept in words when the design came from a shop archive and its source was not in it. */
+  forkedFromText?: string | null;
   forks: { designId: string; title: string; shopName: string; fromRevisionNumber: number | null }[];
   revisions: RevisionInfo[];
   activity: { id: string; action: string; actor: string | null; detail: Record<string, unknown>; createdAt: string }[];

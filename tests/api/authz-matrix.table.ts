@@ -13,6 +13,7 @@ import { hashLinkToken, newLinkToken } from '../../server/auth/secrets';
 import { uniqueEmail } from '../support/accounts';
 import type { FixtureHook, MatrixFixture, MatrixRequest, Principal } from './authz-matrix.fixture';
 import { LIBRARY_ROWS, libraryFixture } from './authz-matrix.library';
+import { ARCHIVE_ROWS } from './authz-matrix.archive';
 
 export interface MatrixRow {
   request: (f: MatrixFixture, who: Principal) => MatrixRequest | Promise<MatrixRequest>;
@@ -35,6 +36,7 @@ function members(min: Role, ok: number): Record<Principal, number> {
 
 export const MATRIX: Record<string, MatrixRow> = {
   ...LIBRARY_ROWS,
+  ...ARCHIVE_ROWS,
   'GET /api/health': { request: () => ({ path: '/api/health' }), expect: anyone(200) },
 
   // Generators and calculators: pure computation on the request's parameters, open to anyone.

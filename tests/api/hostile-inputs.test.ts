@@ -500,7 +500,7 @@ describe('hostile drawing files', () => {
 describe('hostile query strings', () => {
   for (const route of ['GET /api/shops/:shopId/designs', 'GET /api/revisions/:revisionId/download', 'GET /api/revisions/:revisionId/template.pdf', 'GET /api/shops/:shopId/fit-history']) {
     it(route, async () => {
-      const path = '/api' + route.split(' ')[1].replace(/:(\w+)/g, (_m, p: string) => validParam(p));
+      const path = route.split(' ')[1].replace(/:(\w+)/g, (_m, p: string) => validParam(p));
       await runAll(route, queryCases(route).map((q) => ({ label: q.label, send: () => ctx.http.get(`${path}?${q.query}`).set(auth()), want: { status: q.status ?? 400 } })));
     });
   }

@@ -76,7 +76,7 @@ describe('library, revisions and forks in the browser', () => {
     await page.getByTestId('design-submit').click();
     await page.waitForURL(/\/designs\/[0-9a-f-]{36}$/);
     designUrl = page.url();
-    await page.getByText('No revision yet').waitFor();
+    await shown(page.getByText('No revision yet', { exact: true })).waitFor();
 
     await page.getByTestId('upload-revision').click();
     await page.waitForURL('**/upload');
@@ -115,6 +115,10 @@ describe('library, revisions and forks in the browser', () => {
     await page.getByTestId('device-length').fill('148');
     await page.getByTestId('revision-message').fill('First cut file from the shop drawing');
     await screenshot(page, 'upload-checked-wide');
+    await page.setViewportSize(PHONE);
+    await shown(page.getByTestId('inspect-result')).scrollIntoViewIfNeeded();
+    await screenshot(page, 'upload-checked-phone');
+    await page.setViewportSize(WIDE);
     await page.getByTestId('revision-save').click();
 
     await page.waitForURL(/\/designs\/[0-9a-f-]{36}\?r=1$/, { timeout: 30000 });
@@ -128,11 +132,16 @@ describe('library, revisions and forks in the browser', () => {
     await shown(page.getByText('Before you cut or wire anything')).waitFor(); // cautions beside the downloads
     await shown(page.getByTestId('revision-drawing')).waitFor();
     await screenshot(page, 'design-wide');
+    // The frame scrolls inside the window: bring the lower parts into view for their own pictures.
+    await shown(page.getByTestId('downloads')).scrollIntoViewIfNeeded();
+    await screenshot(page, 'design-wide-downloads');
+    await shown(page.getByTestId('activity-log')).scrollIntoViewIfNeeded();
+    await screenshot(page, 'design-wide-history');
 
     // An editor moves r1 on from draft; the history and the log both say so.
-    await page.getByTestId('status-change-1').click();
-    await page.getByRole('radio', { name: 'Trial cut' }).click();
-    await page.getByTestId('status-save-1').click();
+    await shown(page.getByTestId('status-change-1')).click();
+    await shown(page.getByRole('radio', { name: 'Trial cut' })).click();
+    await shown(page.getByTestId('status-save-1')).click();
     await shown(page.getByTestId('activity-log')).getByText('moved r1 from Draft to Trial cut').waitFor({ timeout: 30000 });
     await shown(page.getByTestId('revision-1')).getByText('Trial cut').waitFor();
   });
@@ -186,12 +195,12 @@ describe('library, revisions and forks in the browser', () => {
     await page.getByTestId('device-width').fill('70');
     await page.getByTestId('device-submit').click();
     const table = page.getByRole('table', { name: 'Devices' });
-    await table.getByText(name).waitFor({ timeout: 30000 });
+    await table.getByText(name, { exact: true }).waitFor({ timeout: 30000 });
     await table.getByText('70 × 150 × 8 mm').first().waitFor();
     await screenshot(page, 'catalog-wide');
     await page.getByRole('button', { name: `Delete ${name}` }).click();
     await page.getByRole('button', { name: 'Yes, delete' }).click();
-    await table.getByText(name).waitFor({ state: 'detached', timeout: 30000 });
+    await table.getByText(name, { exact: true }).waitFor({ state: 'detached', timeout: 30000 });
   });
 
   it('lists the design in the library: a table on wide screens, cards on a phone', async () => {
@@ -210,10 +219,18 @@ describe('library, revisions and forks in the browser', () => {
     await page.setViewportSize(PHONE);
     await page.getByRole('list', { name: 'Designs' }).getByRole('link', { name: `Open ${TITLE}` }).waitFor({ timeout: 30000 });
     await screenshot(page, 'library-phone');
+    await shown(page.getByRole('list', { name: 'Designs' })).scrollIntoViewIfNeeded();
+    await screenshot(page, 'library-phone-cards');
     await page.getByRole('link', { name: `Open ${TITLE}` }).click();
     await shown(page.getByTestId('selected-revision')).waitFor({ timeout: 30000 });
     await shown(page.getByTestId('fit-notes')).waitFor();
     await screenshot(page, 'design-phone');
+    await shown(page.getByTestId('fit-notes')).scrollIntoViewIfNeeded();
+    await screenshot(page, 'design-phone-notes');
+    await shown(page.getByTestId('downloads')).scrollIntoViewIfNeeded();
+    await screenshot(page, 'design-phone-downloads');
+    await shown(page.getByTestId('revision-history')).scrollIntoViewIfNeeded();
+    await screenshot(page, 'design-phone-history');
     await page.setViewportSize(WIDE);
   });
 });

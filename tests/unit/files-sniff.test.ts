@@ -60,6 +60,15 @@ describe('sniffUpload', () => {
     expect(uploadText(latin1)).toContain('angle 90°');
   });
 
+  it('reads an SVG as UTF-8 unless it declares Latin-1 (W3C XML 1.0 §4.3.3: no declaration means UTF-8)', () => {
+    const body = (decl: string) => Buffer.concat([Buffer.from(`${decl}<svg xmlns="http://www.w3.org/2000/svg"><title>K`), Buffer.from([0xe4]), Buffer.from('stchen</title></svg>')]);
+    const e = rejection(body(''));
+    expect(e.code).toBe('not_text');
+    expect(e.message).toMatch(/not valid UTF-8/);
+    expect(uploadText(body('<?xml version="1.0" encoding="ISO-8859-1"?>'))).toContain('Kästchen');
+    expect(rejection(Buffer.from([0x3c, 0x73, 0x76, 0x67, 0x3e, 0xc0, 0xaf, 0x3c, 0x2f, 0x73, 0x76, 0x67, 0x3e])).code).toBe('not_text'); // overlong "/" (RFC 3629 §3)
+  });
+
   it('refuses a JSON file and HTML, saying what they look like', () => {
     const json = rejection(Buffer.from('{"paths": []}'));
     expect(json.code).toBe('unknown_format');

@@ -95,6 +95,64 @@ describe('SVG shapes, paths and transforms', () => {
     expect(s.area).toBeCloseTo(100 + (Math.PI * 25) / 2, 6);
   });
 
+  it('flattens cubic Béziers on the curve, within 0.01 mm, and reflects S control points (SVG 1.1 §8.3.6)', () => {
+    // P0 (0,10) P1 (0,0) P2 (10,0) P3 (10,10) (y down): x = 10t²(3 − 2t), y = 10 − 30t(1 − t), apex 7.5 up at t = ½ (D);
+    // S 20 20 20 10 reflects P2 about (10,10) to (10,20): the second curve is the first turned over, apex 7.5 down
+    const r = importSvg(svg('<path d="M0 10 c0 -10 10 -10 10 0 S 20 20 20 10"/>', 'width="20mm" height="20mm" viewBox="0 0 20 20"'));
+    const pts = (paths(r.model) as makerjs.IPathLine[]).map((l) => [l.end[0], 20 - l.end[1]]);
+    for (const [x, y] of pts) {
+      const first = x <= 10;
+      const u = first ? x : x - 10;
+      let lo = 0;
+      let hi = 1;
+      for (let k = 0; k < 80; k++) {
+        const t = (lo + hi) / 2;
+        if (10 * t * t * (3 - 2 * t) < u) lo = t;
+        else hi = t;
+      }
+      const curveY = 30 * lo * (1 - lo);
+      expect(y).toBeCloseTo(first ? 10 - curveY : 10 + curveY, 6);
+    }
+    const e = extents(r.model);
+    expect(20 - e.maxY).toBeGreaterThan(2.5 - 1e-9); // SVG y of the apex: 10 − 7.5
+    expect(20 - e.maxY).toBeLessThan(2.5 + 0.01);
+    expect(20 - e.minY).toBeGreaterThan(17.5 - 0.01);
+    expect(r.warnings.join(' ')).toMatch(/2 curves were replaced by straight segments within 0.01 mm/);
+  });
+
+  it('flattens quadratic Béziers and reflects T control points', () => {
+    // Q 5 0 10 10 from (0,10): apex 5 above the chord at x = 5; T 20 10 reflects (5,0) about (10,10) → apex 5 below (D)
+    const r = importSvg(svg('<path d="M0 10 Q 5 0 10 10 T 20 10"/>', 'width="20mm" height="20mm" viewBox="0 0 20 20"'));
+    const e = extents(r.model);
+    expect(e.maxY).toBeCloseTo(15, 2);
+    expect(e.maxY).toBeLessThanOrEqual(15 + 1e-9);
+    expect(e.minY).toBeCloseTo(5, 2);
+    expect(e.minY).toBeGreaterThanOrEqual(5 - 1e-9);
+  });
+
+  it('flattens elliptical arcs from their centre form (SVG 1.1 F.6.5), rotation included', () => {
+    // half of the ellipse centred (20,10), rx 20, ry 10, through its top (sweep 1 runs clockwise on screen)
+    const r = importSvg(svg('<path d="M 0 10 A 20 10 0 0 1 40 10"/>', 'width="40mm" height="20mm" viewBox="0 0 40 20"'));
+    for (const l of paths(r.model) as makerjs.IPathLine[]) {
+      const [x, y] = [l.end[0], 20 - l.end[1]];
+      expect(((x - 20) / 20) ** 2 + ((y - 10) / 10) ** 2).toBeCloseTo(1, 9);
+      expect(y).toBeLessThanOrEqual(10 + 1e-9);
+    }
+    // the same arc turned 30° about its centre by the arc's own x-axis-rotation: every vertex fits
+    // the turned ellipse ((u/20)² + (v/10)² = 1 in the ellipse's own axes)
+    const c = Math.cos(Math.PI / 6);
+    const sn = Math.sin(Math.PI / 6);
+    const [sx, sy] = [20 - 20 * c, 10 - 20 * sn];
+    const [ex, ey] = [20 + 20 * c, 10 + 20 * sn];
+    const rot = importSvg(svg(`<path d="M ${sx} ${sy} A 20 10 30 0 1 ${ex} ${ey}"/>`, 'width="40mm" height="40mm" viewBox="0 -10 40 40"'));
+    for (const l of paths(rot.model) as makerjs.IPathLine[]) {
+      const [x, y] = [l.end[0] - 20, 30 - l.end[1] - 10];
+      const u = c * x + sn * y;
+      const v = -sn * x + c * y;
+      expect((u / 20) ** 2 + (v / 10) ** 2).toBeCloseTo(1, 9);
+    }
+  });
+
   it('reads a rounded rect as w·h − (4 − π)·r² (shared/REFERENCES.md: 80 × 160, r 3.175 → 12791.3467 mm²)', () => {
     const r = importSvg(svg('<rect x="10" y="10" width="80" height="160" rx="3.175"/>', 'width="100mm" height="180mm" viewBox="0 0 100 180"'));
     const s = summarizeModel(r.model);
@@ -161,6 +219,8 @@ describe('SVG files that are refused or stripped, each with a clear message', ()
     ['a javascript: link', '<a href="javascript:alert(1)"><rect width="1" height="1"/></a>', /script link|outside resource/],
     ['an outside url() in a style', '<rect width="1" height="1" style="fill:url(http://example.invalid/p.svg#g)"/>', /outside resource/],
     ['an @import in a style sheet', '<style>@import url(x.css);</style><rect width="1" height="1"/>', /@import/],
+    ['a <set> that adds an onclick handler', '<rect width="1" height="1"><set attributeName="onclick" to="alert(1)"/></rect>', /animation that sets onclick/],
+    ['an <animate> that rewrites href', '<a href="#r"><animate attributeName="xlink:href" values="http://example.invalid/"/><rect id="r" width="1" height="1"/></a>', /animation that sets xlink:href/],
   ])('refuses %s', (_label, body, message) => {
     const e = rejection(() => importSvg(svg(body)));
     expect(e.code).toBe('unsafe_svg');

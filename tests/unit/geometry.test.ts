@@ -250,3 +250,16 @@ describe('generated DXF read back by independent readers (dxf-parser, ezdxf)', (
     expect(new Set(cases.map((c) => c[0]))).toEqual(new Set(GENERATORS.map((g) => g.id)));
   });
 });
+
+describe('layer paths for the screen', () => {
+  it('puts the drawing’s top-left corner at (0, 0) for a part away from the origin (SVG y down, W3C SVG 1.1 §7.3)', async () => {
+    const makerjs = (await import('makerjs')).default;
+    const { modelToLayerPaths } = await import('../../shared/geometry/paths');
+    const rect = makerjs.model.move(new makerjs.models.Rectangle(40, 20), [100, 50]);
+    const [{ d }] = modelToLayerPaths({ models: { r: rect } });
+    const nums = (d.match(/-?\d+(\.\d+)?/g) ?? []).map(Number);
+    const xs = nums.filter((_, i) => i % 2 === 0);
+    const ys = nums.filter((_, i) => i % 2 === 1);
+    expect([Math.min(...xs), Math.max(...xs), Math.min(...ys), Math.max(...ys)]).toEqual([0, 40, 0, 20]);
+  });
+});
