@@ -97,3 +97,27 @@ export function twoLayerDxf(segments = 5000, seed = 7): BenchDxf {
   parts.push('0\nENDSEC\n0\nEOF\n');
   return { text: parts.join('\n'), entities: { LINE: 2 * segments } };
 }
+
+/**
+ * One open zig-zag run of `segments` LINE entities on the outline layer, 300 mm long. With
+ * `changeFrom`, the segments from that index on swing wider: a later revision of the same part,
+ * so a compare finds both unchanged and changed segments.
+ */
+export function zigzagDxf(segments = 5000, changeFrom = segments): BenchDxf {
+  const rnd = prng(11);
+  const f = (v: number) => v.toFixed(3);
+  const parts: string[] = [HEADER.join('\n'), '0\nSECTION\n2\nENTITIES'];
+  const step = 300 / segments;
+  let x = 0;
+  let y = 100;
+  for (let i = 0; i < segments; i++) {
+    const amp = (i >= changeFrom ? 55 : 40) * (0.6 + 0.4 * rnd());
+    const nx = x + step;
+    const ny = 100 + (i % 2 === 0 ? amp : -amp);
+    parts.push(`0\nLINE\n8\noutline\n10\n${f(x)}\n20\n${f(y)}\n11\n${f(nx)}\n21\n${f(ny)}`);
+    x = nx;
+    y = ny;
+  }
+  parts.push('0\nENDSEC\n0\nEOF\n');
+  return { text: parts.join('\n'), entities: { LINE: segments } };
+}

@@ -2,9 +2,9 @@
 // dist/index.html loads); baseline: React's own production builds (react, react-dom client,
 // scheduler) gzipped, the floor any React web app ships. (b) First contentful paint of the app in
 // headless Chromium on loopback, cache disabled; baseline: a one-heading static page served on
-// loopback to the same browser. (c) A drawing with two 5,000-segment layer paths (see the row's
-// label for what screen draws it); baseline: the same two path strings drawn into a bare <svg>
-// with DOM calls in the same page.
+// loopback to the same browser. (c) The compare view of two 5,000-segment revisions (or, without a
+// compare screen in app/, the design page's drawing with two 5,000-segment layer paths); baseline:
+// the same path strings drawn into a bare <svg> with DOM calls on a blank page.
 import fs from 'node:fs';
 import http from 'node:http';
 import path from 'node:path';
@@ -13,13 +13,13 @@ import type { Page } from 'playwright-core';
 import { repoRoot } from '../scripts/lib/services.mjs';
 import { openBrowser, WIDE } from '../tests/browser/browser';
 import { apiJson, signIn } from './api';
-import { twoLayerDxf } from './dxfFile';
-import { judge, type Row } from './lib/report';
+import { twoLayerDxf, zigzagDxf } from './dxfFile';
+import { errorRow, judge, type Row } from './lib/report';
 import { loadText, mb, median, ms, ratio } from './lib/stats';
 import type { BenchStack } from './stack';
 
 const FCP_RUNS = 5;
-const DRAW_RUNS = 5;
+const DRAW_RUNS = 7;
 const SEGMENTS = 5000;
 
 const gz = (buf: Buffer) => zlib.gzipSync(buf, { level: 6 }).length;
@@ -67,60 +67,82 @@ async function fcpOf(page: Page, url: string): Promise<number> {
   return page.evaluate(() => performance.getEntriesByName('first-contentful-paint')[0].startTime);
 }
 
-/** Set before the app's scripts run: stamps when two big paths are in the drawing and painted. */
-function drawingProbe(minLength: number) {
-  const w = window as unknown as { __jwDraw?: { dom?: number; painted?: number } };
-  w.__jwDraw = {};
-  const check = () => {
-    const state = w.__jwDraw!;
-    if (state.dom !== undefined) return;
-    const paths = [...document.querySelectorAll('[data-testid="revision-drawing"] path')].filter((p) => (p.getAttribute('d') ?? '').length > minLength);
-    if (paths.length >= 2) {
-      state.dom = performance.now();
-      // the callback after the next frame's paint
-      requestAnimationFrame(() => {
-        const ch = new MessageChannel();
-        ch.port1.onmessage = () => (state.painted = performance.now());
-        ch.port2.postMessage(0);
-      });
-    }
-  };
-  new MutationObserver(check).observe(document, { subtree: true, childList: true, attributes: true, attributeFilter: ['d'] });
-}
+// The two functions below run in the page. They are plain JavaScript source, not TypeScript
+// functions handed to Playwright: tsx compiles named functions with an esbuild helper (__name)
+// that does not exist in the page.
 
-/** The two big paths again, drawn with bare DOM calls into a fresh <svg>: time to painted. */
-function bareSvgDraw(minLength: number): Promise<{ ms: number; segments: number[] }> {
-  const src = [...document.querySelectorAll('[data-testid="revision-drawing"] path')].filter((p) => (p.getAttribute('d') ?? '').length > minLength);
-  const svgSrc = src[0].closest('svg')!;
-  const ds = src.map((p) => p.getAttribute('d')!);
-  const segments = ds.map((d) => (d.match(/[LAQC]/gi) ?? []).length);
-  return new Promise((resolve) => {
-    const t0 = performance.now();
-    const NS = 'http://www.w3.org/2000/svg';
-    const svg = document.createElementNS(NS, 'svg');
-    svg.setAttribute('width', svgSrc.getAttribute('width') ?? '800');
-    svg.setAttribute('height', svgSrc.getAttribute('height') ?? '400');
-    svg.setAttribute('viewBox', svgSrc.getAttribute('viewBox') ?? '0 0 300 200');
-    for (const [i, d] of ds.entries()) {
-      const p = document.createElementNS(NS, 'path');
-      p.setAttribute('d', d);
-      p.setAttribute('fill', 'none');
-      p.setAttribute('stroke', src[i].getAttribute('stroke') ?? '#000');
-      p.setAttribute('stroke-width', src[i].getAttribute('stroke-width') ?? '0.5');
-      svg.appendChild(p);
-    }
-    document.body.prepend(svg);
-    requestAnimationFrame(() => {
-      const ch = new MessageChannel();
-      ch.port1.onmessage = () => {
-        const dt = performance.now() - t0;
-        svg.remove();
-        resolve({ ms: dt, segments });
-      };
+/**
+ * Set before the app's scripts run: stamps when every container named in `need` holds its count of
+ * big paths (path data longer than `minLength`), and when the frame after that has painted.
+ */
+const DRAWING_PROBE = `(function (need, minLength) {
+  var state = { };
+  window.__jwDraw = state;
+  function bigPaths(sel) {
+    return Array.prototype.filter.call(document.querySelectorAll(sel + ' path'), function (p) {
+      return (p.getAttribute('d') || '').length > minLength;
+    });
+  }
+  function check() {
+    if (state.dom !== undefined) return;
+    for (var i = 0; i < need.length; i++) if (bigPaths(need[i][0]).length < need[i][1]) return;
+    state.dom = performance.now();
+    // the task after the next frame: that frame has painted the paths
+    requestAnimationFrame(function () {
+      var ch = new MessageChannel();
+      ch.port1.onmessage = function () { state.painted = performance.now(); };
+      ch.port2.postMessage(0);
+    });
+  }
+  window.__jwObserver = new MutationObserver(check);
+  window.__jwObserver.observe(document, { subtree: true, childList: true, attributes: true, attributeFilter: ['d'] });
+})`;
+
+/** The big paths' data and looks, read from the app's page for the baseline. */
+const READ_PATHS = `(function (need, minLength) {
+  var src = [];
+  need.forEach(function (n) {
+    Array.prototype.forEach.call(document.querySelectorAll(n[0] + ' path'), function (p) {
+      if ((p.getAttribute('d') || '').length > minLength) src.push(p);
+    });
+  });
+  var svg = src[0].closest('svg');
+  return {
+    width: svg.getAttribute('width') || '800',
+    height: svg.getAttribute('height') || '400',
+    viewBox: svg.getAttribute('viewBox') || '0 0 300 200',
+    paths: src.map(function (p) {
+      return { d: p.getAttribute('d'), stroke: p.getAttribute('stroke') || '#000', width: p.getAttribute('stroke-width') || '0.5', dash: p.getAttribute('stroke-dasharray') };
+    }),
+  };
+})`;
+
+/** Draws those paths with bare DOM calls into a fresh <svg> on a blank page: time to painted. */
+const BARE_SVG_DRAW = `(function (data) {
+  return new Promise(function (resolve) {
+    var t0 = performance.now();
+    var NS = 'http://www.w3.org/2000/svg';
+    var svg = document.createElementNS(NS, 'svg');
+    svg.setAttribute('width', data.width);
+    svg.setAttribute('height', data.height);
+    svg.setAttribute('viewBox', data.viewBox);
+    data.paths.forEach(function (p) {
+      var el = document.createElementNS(NS, 'path');
+      el.setAttribute('d', p.d);
+      el.setAttribute('fill', 'none');
+      el.setAttribute('stroke', p.stroke);
+      el.setAttribute('stroke-width', p.width);
+      if (p.dash) el.setAttribute('stroke-dasharray', p.dash);
+      svg.appendChild(el);
+    });
+    document.body.appendChild(svg);
+    requestAnimationFrame(function () {
+      var ch = new MessageChannel();
+      ch.port1.onmessage = function () { resolve(performance.now() - t0); };
       ch.port2.postMessage(0);
     });
   });
-}
+})`;
 
 function compareRoute(): string | null {
   const hits: string[] = [];
@@ -135,36 +157,13 @@ function compareRoute(): string | null {
   return hits[0] ?? null;
 }
 
-export async function benchWeb(stack: BenchStack, baseUrl: string): Promise<{ rows: Row[]; notes: string[] }> {
-  const rows: Row[] = [];
-  const notes: string[] = [];
+type Browser = Awaited<ReturnType<typeof openBrowser>>;
+type Part = { rows: Row[]; notes: string[] };
 
-  // (a) initial JavaScript
-  const js = initialJs();
-  const floor = reactFloor();
-  rows.push({
-    id: '5a',
-    what: `Web: initial JavaScript, gzipped (${js.files.length} script${js.files.length === 1 ? '' : 's'} in dist/index.html)`,
-    measured: `${mb(js.gzip)} (${mb(js.raw)} minified)`,
-    baseline: `${mb(floor)} (react + react-dom + scheduler production builds)`,
-    ratio: ratio(js.gzip, floor),
-    target: '≤ 1.5 MB gzipped',
-    ...judge([{ ok: js.gzip <= 1.5 * 1024 * 1024, label: `${mb(js.gzip)} > 1.5 MB` }]),
-  });
-
-  // the drawing's design: an uploaded DXF with two 5,000-segment runs on two layers
-  const token = await signIn(baseUrl, 'editor@larchmere.example', 'larchmere-editor');
-  const design = await apiJson<{ id: string }>(baseUrl, token, 'POST', `/shops/${stack.seed.shopId}/designs`, { kind: 'template', title: 'Bench two-layer drawing', tags: ['bench'], material: 'MDF' }, 201);
-  const form = new FormData();
-  form.set('message', 'Two 5,000-segment runs');
-  form.set('file', new Blob([twoLayerDxf(SEGMENTS).text], { type: 'application/dxf' }), 'two-layers.dxf');
-  const up = await fetch(`${baseUrl}/api/designs/${design.id}/revisions/upload`, { method: 'POST', headers: { authorization: `Bearer ${token}` }, body: form });
-  if (up.status !== 201) throw new Error(`uploading the drawing answered ${up.status}: ${(await up.text()).slice(0, 200)}`);
-
+/** (b) first contentful paint of the app and of the floor page, cold cache each time, one warm-up load first. */
+async function fcpRows(b: Browser, baseUrl: string): Promise<Part> {
   const floorPage = await staticPageServer();
-  const b = await openBrowser(WIDE);
   try {
-    // (b) first contentful paint, cold cache each time (one warm-up load first)
     const fcpApp: number[] = [];
     const fcpFloor: number[] = [];
     for (let i = 0; i <= FCP_RUNS; i++) {
@@ -177,67 +176,162 @@ export async function benchWeb(stack: BenchStack, baseUrl: string): Promise<{ ro
     }
     const fApp = median(fcpApp);
     const fFloor = median(fcpFloor);
-    rows.push({
-      id: '5b',
-      what: `Web: first contentful paint of / (headless Chromium, loopback, cache off; median of ${FCP_RUNS})`,
-      measured: ms(fApp),
-      baseline: `${ms(fFloor)} (static one-heading page)`,
-      ratio: ratio(fApp, fFloor),
-      target: '≤ 1.5 s',
-      ...judge([{ ok: fApp <= 1500, label: `${ms(fApp)} > 1.5 s` }]),
-    });
-    notes.push(`Row 5b: FCP runs, app: ${fcpApp.map((v) => ms(v)).join(', ')}; floor page: ${fcpFloor.map((v) => ms(v)).join(', ')}. Viewport ${WIDE.width}×${WIDE.height}, signed out.`);
-
-    // (c) the drawing: design page, signed in through the browser's own cookie
-    const sign = await b.context.request.post(`${baseUrl}/api/auth/sign-in`, { data: { email: 'editor@larchmere.example', password: 'larchmere-editor' } });
-    if (sign.status() !== 200) throw new Error(`browser sign-in answered ${sign.status()}`);
-    const minLength = SEGMENTS * 4; // a 5,000-segment path's data is far longer than this; the dimension lines are not
-    const drawn: number[] = [];
-    const bare: number[] = [];
-    let segments: number[] = [];
-    const total: number[] = [];
-    for (let i = 0; i <= DRAW_RUNS; i++) {
-      const page = await coldPage(b.context);
-      await page.addInitScript(drawingProbe, minLength);
-      await page.goto(`${baseUrl}/help/safety`);
-      await page.evaluate((id) => localStorage.setItem('jigwright.currentShop', id), stack.seed.shopId);
-      await page.goto(`${baseUrl}/designs/${design.id}`, { waitUntil: 'load' });
-      await page.waitForFunction(() => (window as unknown as { __jwDraw?: { painted?: number } }).__jwDraw?.painted !== undefined, undefined, { timeout: 60_000 });
-      const t = await page.evaluate(() => {
-        const s = (window as unknown as { __jwDraw: { dom: number; painted: number } }).__jwDraw;
-        const model = performance.getEntriesByType('resource').filter((e) => /\/api\/revisions\/[^/]+\/model$/.test(e.name)) as PerformanceResourceTiming[];
-        return { dom: s.dom, painted: s.painted, modelEnd: model.length ? model[model.length - 1].responseEnd : NaN };
-      });
-      if (!Number.isFinite(t.modelEnd)) throw new Error('the design page did not fetch the revision model');
-      const base = await page.evaluate(bareSvgDraw, minLength);
-      await page.close();
-      if (i === 0) continue; // warm-up
-      drawn.push(t.painted - t.modelEnd);
-      total.push(t.painted);
-      bare.push(base.ms);
-      segments = base.segments;
-    }
-    const dMed = median(drawn);
-    const bMed = median(bare);
-    const compare = compareRoute();
-    const label = compare
-      ? `Web: two 5,000-segment layer paths in Drawing.tsx on the design page (a compare route exists at ${compare}, but this row does not drive it)`
-      : 'Web: compare view — no compare screen in app/ yet; measured instead: the design page drawing (Drawing.tsx) of one uploaded revision with two 5,000-segment layer paths, from the model response to painted';
-    rows.push({
-      id: '5c',
-      what: `${label} (median of ${DRAW_RUNS})`,
-      measured: ms(dMed),
-      baseline: `${ms(bMed)} (same two paths, bare <svg> via DOM)`,
-      ratio: ratio(dMed, bMed),
-      target: '≤ 300 ms',
-      ...judge([{ ok: dMed <= 300, label: `${ms(dMed)} > 300 ms` }]),
-    });
-    notes.push(
-      `Row 5c: paths drawn had ${segments.join(' and ')} segment commands. The time runs from the end of the /model response to the first paint after both paths are in the DOM: it includes JSON parsing, modelLayerPaths (makerjs toSVGPathData) and the React render. Runs: ${drawn.map((v) => ms(v)).join(', ')}; bare SVG: ${bare.map((v) => ms(v)).join(', ')}; navigation start to painted: ${total.map((v) => ms(v)).join(', ')}. Load average at the end: ${loadText()}.`,
-    );
+    return {
+      rows: [
+        {
+          id: '5b',
+          what: `Web: first contentful paint of / (headless Chromium, loopback, cache off; median of ${FCP_RUNS})`,
+          measured: ms(fApp),
+          baseline: `${ms(fFloor)} (static one-heading page)`,
+          ratio: ratio(fApp, fFloor),
+          target: '≤ 1.5 s',
+          ...judge([{ ok: fApp <= 1500, label: `${ms(fApp)} > 1.5 s` }]),
+        },
+      ],
+      notes: [`Row 5b: FCP runs, app: ${fcpApp.map((v) => ms(v)).join(', ')}; floor page: ${fcpFloor.map((v) => ms(v)).join(', ')}. Viewport ${WIDE.width}×${WIDE.height}, signed out.`],
+    };
   } finally {
-    await b.close();
     await floorPage.close();
   }
-  return { rows, notes };
+}
+
+async function upload(baseUrl: string, token: string, designId: string, message: string, dxf: string): Promise<string> {
+  const form = new FormData();
+  form.set('message', message);
+  form.set('file', new Blob([dxf], { type: 'application/dxf' }), 'bench.dxf');
+  const up = await fetch(`${baseUrl}/api/designs/${designId}/revisions/upload`, { method: 'POST', headers: { authorization: `Bearer ${token}` }, body: form });
+  if (up.status !== 201) throw new Error(`uploading a bench drawing answered ${up.status}: ${(await up.text()).slice(0, 200)}`);
+  return ((await up.json()) as { id: string }).id;
+}
+
+/**
+ * (c) Two 5,000-segment drawings on screen. With a compare screen in app/: two uploaded
+ * revisions of 5,000 segments (the second half changed) on /revisions/:a/compare/:b, both panes and
+ * the overlay drawn. Without one: the design page's drawing of one revision with two 5,000-segment
+ * layer paths. Signed in through the browser's own cookie; timed from the last /model response.
+ */
+async function drawingRows(b: Browser, stack: BenchStack, baseUrl: string): Promise<Part> {
+  const token = await signIn(baseUrl, 'editor@larchmere.example', 'larchmere-editor');
+  const design = await apiJson<{ id: string }>(baseUrl, token, 'POST', `/shops/${stack.seed.shopId}/designs`, { kind: 'template', title: 'Bench drawing', tags: ['bench'], material: 'MDF' }, 201);
+  const compare = compareRoute();
+  let url: string;
+  let need: [string, number][];
+  let models: number;
+  if (compare) {
+    const a = await upload(baseUrl, token, design.id, 'Bench r1: 5,000 segments', zigzagDxf(SEGMENTS).text);
+    const bId = await upload(baseUrl, token, design.id, 'Bench r2: 5,000 segments, the second half changed', zigzagDxf(SEGMENTS, SEGMENTS / 2).text);
+    url = `${baseUrl}/revisions/${a}/compare/${bId}`;
+    need = [['[data-testid="compare-pane-a"]', 1], ['[data-testid="compare-pane-b"]', 1], ['[data-testid="compare-overlay"]', 1]];
+    models = 2;
+  } else {
+    await upload(baseUrl, token, design.id, 'Two 5,000-segment runs', twoLayerDxf(SEGMENTS).text);
+    url = `${baseUrl}/designs/${design.id}`;
+    need = [['[data-testid="revision-drawing"]', 2]];
+    models = 1;
+  }
+
+  const sign = await b.context.request.post(`${baseUrl}/api/auth/sign-in`, { data: { email: 'editor@larchmere.example', password: 'larchmere-editor' } });
+  if (sign.status() !== 200) throw new Error(`browser sign-in answered ${sign.status()}`);
+  const minLength = 10_000; // path data of thousands of segments is far longer; dimension lines and marks are not
+  const args = `${JSON.stringify(need)}, ${minLength}`;
+  const drawn: number[] = [];
+  const bare: number[] = [];
+  const total: number[] = [];
+  let segments: number[] = [];
+  for (let i = 0; i <= DRAW_RUNS; i++) {
+    const page = await coldPage(b.context);
+    await page.addInitScript({ content: `${DRAWING_PROBE}(${args});` });
+    await page.goto(`${baseUrl}/help/safety`);
+    await page.evaluate((id) => localStorage.setItem('jigwright.currentShop', id), stack.seed.shopId);
+    await page.goto(url, { waitUntil: 'load' });
+    await page.waitForFunction(() => (window as unknown as { __jwDraw?: { painted?: number } }).__jwDraw?.painted !== undefined, undefined, { timeout: 60_000 });
+    const t = await page.evaluate(() => {
+      const s = (window as unknown as { __jwDraw: { dom: number; painted: number } }).__jwDraw;
+      const ends = (performance.getEntriesByType('resource') as PerformanceResourceTiming[]).filter((e) => /\/api\/revisions\/[^/]+\/model$/.test(e.name)).map((e) => e.responseEnd);
+      return { dom: s.dom, painted: s.painted, modelEnds: ends };
+    });
+    if (t.modelEnds.length < models) throw new Error(`the page fetched ${t.modelEnds.length} revision model(s), not ${models}`);
+    const data = (await page.evaluate(`${READ_PATHS}(${args})`)) as { paths: { d: string }[] };
+    await page.close();
+    // the baseline: the same paths on a blank page of the same browser, nothing else running
+    const blank = await coldPage(b.context);
+    await blank.setContent('<!doctype html><html><head><meta charset="utf-8"></head><body></body></html>');
+    const bareMs = (await blank.evaluate(`${BARE_SVG_DRAW}(${JSON.stringify(data)})`)) as number;
+    await blank.close();
+    if (i === 0) continue; // warm-up
+    drawn.push(t.painted - Math.max(...t.modelEnds));
+    total.push(t.painted);
+    bare.push(bareMs);
+    segments = data.paths.map((p) => (p.d.match(/[LAQC]/gi) ?? []).length);
+  }
+  const dMed = median(drawn);
+  const bMed = median(bare);
+  const what = compare
+    ? `Web: compare view (${compare}) of two 5,000-segment revisions, both panes and the overlay, from the last model response to painted`
+    : 'Web: compare view — no compare screen in app/; measured instead: the design page drawing (Drawing.tsx) of one revision with two 5,000-segment layer paths, from the model response to painted';
+  return {
+    rows: [
+      {
+        id: '5c',
+        what: `${what} (median of ${DRAW_RUNS})`,
+        measured: ms(dMed),
+        baseline: `${ms(bMed)} (the same paths, bare <svg> via DOM on a blank page)`,
+        ratio: ratio(dMed, bMed),
+        target: '≤ 300 ms',
+        ...judge([{ ok: dMed <= 300, label: `${ms(dMed)} > 300 ms` }]),
+      },
+    ],
+    notes: [
+      `Row 5c: viewport ${WIDE.width}×${WIDE.height}; the big paths drawn had ${segments.join(', ')} segment commands. The time runs from the end of the last /model response to the first paint after every big path is in the DOM: JSON parsing, the screen's own path work${compare ? ' (makerjs path data, segment classification)' : ' (modelLayerPaths, makerjs toSVGPathData)'} and the React render. Runs: ${drawn.map((v) => ms(v)).join(', ')}; bare SVG: ${bare.map((v) => ms(v)).join(', ')}; navigation start to painted: ${total.map((v) => ms(v)).join(', ')}. Load average at the end: ${loadText()}.`,
+    ],
+  };
+}
+
+export async function benchWeb(stack: BenchStack, baseUrl: string): Promise<Part> {
+  const out: Part = { rows: [], notes: [] };
+  const add = async (fallback: { id: string; what: string; target: string }, fn: () => Promise<Part>) => {
+    try {
+      const r = await fn();
+      out.rows.push(...r.rows);
+      out.notes.push(...r.notes);
+    } catch (e) {
+      console.error(`[bench] row ${fallback.id} failed:`, e);
+      out.rows.push(errorRow(fallback.id, fallback.what, fallback.target, e));
+    }
+  };
+
+  // (a) initial JavaScript
+  await add({ id: '5a', what: 'Web: initial JavaScript, gzipped', target: '≤ 1.5 MB gzipped' }, async () => {
+    const js = initialJs();
+    const floor = reactFloor();
+    return {
+      rows: [
+        {
+          id: '5a',
+          what: `Web: initial JavaScript, gzipped (${js.files.length} script${js.files.length === 1 ? '' : 's'} in dist/index.html)`,
+          measured: `${mb(js.gzip)} (${mb(js.raw)} minified)`,
+          baseline: `${mb(floor)} (react + react-dom + scheduler production builds)`,
+          ratio: ratio(js.gzip, floor),
+          target: '≤ 1.5 MB gzipped',
+          ...judge([{ ok: js.gzip <= 1.5 * 1024 * 1024, label: `${mb(js.gzip)} > 1.5 MB` }]),
+        },
+      ],
+      notes: [`Row 5a: ${js.files.map((f) => `${f.file} ${mb(f.raw)} → ${mb(f.gzip)} gzipped`).join('; ')} (gzip level 6, zlib's default). The baseline is the floor any React web app ships.`],
+    };
+  });
+
+  let b: Browser | undefined;
+  try {
+    b = await openBrowser(WIDE);
+    const browser = b;
+    await add({ id: '5b', what: 'Web: first contentful paint', target: '≤ 1.5 s' }, () => fcpRows(browser, baseUrl));
+    await add({ id: '5c', what: 'Web: compare view, two 5,000-segment drawings', target: '≤ 300 ms' }, () => drawingRows(browser, stack, baseUrl));
+  } catch (e) {
+    for (const [id, what, target] of [['5b', 'Web: first contentful paint', '≤ 1.5 s'], ['5c', 'Web: compare view, two 5,000-segment drawings', '≤ 300 ms']]) {
+      if (!out.rows.some((r) => r.id === id)) out.rows.push(errorRow(id, what, target, e));
+    }
+  } finally {
+    await b?.close();
+  }
+  return out;
 }

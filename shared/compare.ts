@@ -49,7 +49,8 @@ function geometryFacts(s: GeometrySummary): Record<string, { v: number; unit: Di
   return facts;
 }
 
-const LENGTHLESS = /count|sides|angle|cased|shape|grain|text|name|material|kind|edges|notch|corner(s)?Style|side$/i;
+// Numbers that are not lengths (counts, angles, moisture percentages); text and flags have no unit anyway.
+const LENGTHLESS = /count|sides|angle|splay|^mc|percent|moisture/i;
 
 function row(section: DiffRow['section'], key: string, a: Scalar, b: Scalar, unit: DiffRow['unit']): DiffRow {
   const numeric = typeof a === 'number' && typeof b === 'number';

@@ -17,7 +17,7 @@ export function ms(v: number): string {
 }
 
 export function mb(bytes: number): string {
-  return `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
+  return `${(bytes / (1024 * 1024)).toFixed(2)} MB`;
 }
 
 export function ratio(a: number, b: number): string {

@@ -200,7 +200,7 @@ export function DiffTable({ rows, units }: { rows: DiffRow[]; units: LengthUnit 
         const testID = `diff-${r.section.replace(' ', '-')}-${r.key}`;
         return (
           <View key={`${r.section}|${r.key}`} style={[styles.row, !isWide && styles.rowStacked, r.changed && styles.changed]} testID={testID} aria-label={`${SECTION_TEXT[r.section]} ${rowLabel(r.key)}${r.changed ? ', changed' : ''}`}>
-            <View style={styles.what}>
+            <View style={[styles.what, !isWide && styles.whatStacked]}>
               <Text style={theme.label}>{rowLabel(r.key)}</Text>
               <Text style={theme.muted}>{SECTION_TEXT[r.section]}</Text>
             </View>
@@ -223,6 +223,7 @@ const styles = StyleSheet.create({
   head: { borderBottomColor: colors.inkMuted },
   changed: { backgroundColor: colors.cautionSoft, borderLeftWidth: 4, borderLeftColor: colors.caution, borderRadius: radius.sm },
   what: { flex: 2, minWidth: 160 },
-  val: { flex: 1, minWidth: 90 },
+  whatStacked: { flexBasis: '100%', flexDirection: 'row', gap: space.sm, alignItems: 'baseline' },
+  val: { flex: 1, minWidth: 84 },
   deltaChanged: { fontFamily: 'IBMPlexSans_700Bold' },
 });

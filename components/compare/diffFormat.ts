@@ -5,6 +5,8 @@ import { MM_PER_INCH, type LengthUnit } from '../../shared/units';
 const MINUS = '−';
 
 function signed(n: number, digits: number): string {
+  // A real change too small for the usual figures gets up to two more, so it never reads as ±0.
+  for (let extra = 0; extra < 2 && n !== 0 && Number(Math.abs(n).toFixed(digits)) === 0; extra++) digits++;
   const s = Math.abs(n).toFixed(digits);
   if (Number(s) === 0) return `±${s}`;
   return `${n > 0 ? '+' : MINUS}${s}`;

@@ -3,6 +3,7 @@ import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { REVISION_STATUSES, STATUS_HELP, STATUS_LABEL, type RevisionInfo, type RevisionStatus } from '../../shared/schemas/library';
 import { useChangeStatus } from '../api/revisions';
 import { Segmented } from '../forms/Segmented';
+import { Link } from 'expo-router';
 import { Button, formatWhen, Notice, StatusBadge } from '../library/controls';
 import { colors, fonts, radius, space, theme } from '../ui';
 
@@ -64,6 +65,16 @@ export function RevisionHistory({
                 {r.author?.name ?? 'Someone no longer in the shop'} · {formatWhen(r.createdAt, true)} · {sourceText(r)}
               </Text>
             </Pressable>
+            <View style={[theme.row, { flexWrap: 'wrap', gap: space.lg }]}>
+              <Link href={`/revisions/${r.id}` as never} style={theme.link} aria-label={`Open r${r.number}: zoom, compare, cut log`}>
+                Open r{r.number}: zoom, compare, cut log
+              </Link>
+              {editable && r.source === 'generated' && r.generatorId ? (
+                <Link href={`/generators/${r.generatorId}?revision=${r.id}` as never} style={theme.link} aria-label={`New revision from r${r.number}'s parameters`}>
+                  New revision from these parameters
+                </Link>
+              ) : null}
+            </View>
             {editable ? (
               changing === r.id ? (
                 <StatusChanger designId={designId} revision={r} onDone={() => setChanging(null)} />

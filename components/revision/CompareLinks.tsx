@@ -6,22 +6,26 @@ import { space, theme } from '../ui';
 
 /** Links to compare this revision with every other revision of the design and of its fork lineage. */
 export function CompareLinks({ revisionId, design }: { revisionId: string; design: DesignDetail }) {
-  const related = [...(design.forkedFrom ? [design.forkedFrom.designId] : []), ...design.forks.map((f) => f.designId)];
+  const related = [
+    ...(design.forkedFrom ? [{ id: design.forkedFrom.designId, title: design.forkedFrom.designTitle, shop: design.forkedFrom.shopName, isSource: true }] : []),
+    ...design.forks.map((f) => ({ id: f.designId, title: f.title, shop: f.shopName, isSource: false })),
+  ];
   return (
     <View style={{ gap: space.sm }} testID="compare-links">
       <DesignRevisions revisionId={revisionId} design={design} heading="This design" />
-      {related.map((id) => (
-        <RelatedDesign key={id} designId={id} revisionId={revisionId} isSource={id === design.forkedFrom?.designId} />
+      {related.map((r) => (
+        <RelatedDesign key={r.id} designId={r.id} revisionId={revisionId} isSource={r.isSource} title={r.title} shop={r.shop} />
       ))}
     </View>
   );
 }
 
-function RelatedDesign({ designId, revisionId, isSource }: { designId: string; revisionId: string; isSource: boolean }) {
+function RelatedDesign({ designId, revisionId, isSource, title, shop }: { designId: string; revisionId: string; isSource: boolean; title: string; shop: string }) {
   const d = useDesign(designId);
-  if (d.isLoading) return <Text style={theme.muted}>Reading the related design…</Text>;
-  // A fork in a shop the viewer is not in: it exists, but there is nothing here to compare with.
-  if (!d.data) return null;
+  const heading = `${isSource ? 'Forked from' : 'Fork'}: ${title} (${shop})`;
+  if (d.isLoading) return <Text style={theme.muted}>Reading {title}…</Text>;
+  // A design in a shop the signed-in person is not in: it exists, but it cannot be compared here.
+  if (!d.data) return <Text style={theme.muted}>{heading}: not in one of your shops, so its revisions cannot be compared here.</Text>;
   return <DesignRevisions revisionId={revisionId} design={d.data} heading={`${isSource ? 'Forked from' : 'Fork'}: ${d.data.title} (${d.data.shopName})`} />;
 }
 

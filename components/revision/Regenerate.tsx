@@ -8,9 +8,10 @@ import { Button, Notice } from '../library/controls';
 import { space, theme } from '../ui';
 import { formatDimension } from '../drawing/format';
 import type { DisplayUnits } from '../forms/useDisplayUnits';
+import { SuggestedClearance } from '../cuts/SuggestedClearance';
 
 /** Same generator and parameters, another device from the shop's catalog; lands on the compare view. */
-export function RegeneratePanel({ revisionId, designId, shopId, currentDevice, units }: { revisionId: string; designId: string; shopId: string; currentDevice?: string; units: DisplayUnits }) {
+export function RegeneratePanel({ revisionId, designId, shopId, currentDevice, material, units }: { revisionId: string; designId: string; shopId: string; currentDevice?: string; material?: string; units: DisplayUnits }) {
   const devices = useDevices(shopId);
   const regen = useRegenerate(designId);
   const [deviceId, setDeviceId] = useState<string | null>(null);
@@ -31,6 +32,10 @@ export function RegeneratePanel({ revisionId, designId, shopId, currentDevice, u
           setMissing(false);
         }}
       />
+      {deviceId ? (
+        <SuggestedClearance shopId={shopId} device={list.find((d) => d.id === deviceId)?.name} material={material} units={units} />
+      ) : null}
+      <Text style={theme.muted}>The new revision keeps this one’s pocket clearance; to use a suggested clearance, make a new revision from the generator.</Text>
       {missing ? <Text role="alert" style={[theme.muted, { color: '#A83A2A' }]}>Choose the device the new revision should fit.</Text> : null}
       <Button
         label="Regenerate for this device"

@@ -139,7 +139,7 @@ export function RevisionPage({ revision, design }: { revision: RevisionWithTitle
       </Section>
       {editor && revision.source === 'generated' ? (
         <Section title="Regenerate for another device">
-          <RegeneratePanel revisionId={revision.id} designId={design.id} shopId={design.shopId} currentDevice={revision.fitNotes.device?.name} units={units} />
+          <RegeneratePanel revisionId={revision.id} designId={design.id} shopId={design.shopId} currentDevice={revision.fitNotes.device?.name} material={revision.fitNotes.stock?.material ?? design.material} units={units} />
         </Section>
       ) : null}
       <Section title="Compare with another revision">

@@ -28,7 +28,7 @@ export function TemplateLinks({ revisionId, units }: { revisionId: string; units
             style={styles.link}
             testID={`template-${p.paper}`}
           >
-            ⎙ Template, {p.label}
+            Printable template, {p.label}
           </Text>
         ))}
       </View>

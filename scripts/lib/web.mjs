@@ -5,7 +5,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { log, repoRoot } from './services.mjs';
 
-const inputs = ['app', 'components', 'shared', 'assets', 'app.json', 'package-lock.json', 'tsconfig.json'];
+const inputs = ['app', 'components', 'shared', 'assets', 'index.ts', 'app.json', 'package-lock.json', 'tsconfig.json'];
 
 function walk(p, out) {
   if (!fs.existsSync(p)) return;

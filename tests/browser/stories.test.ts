@@ -230,12 +230,20 @@ describe('revision, compare and cut-log stories', () => {
     await shown(page.getByTestId('revision-drawing')).waitFor({ timeout: 30000 });
     // The fork's lineage: its source's revisions are offered for comparing.
     await shown(page.getByTestId('compare-links')).getByText(/Forked from: Leg taper sled/).waitFor();
-    // The design page has no form for a new generated revision yet, so the parameter change goes through the API from the page.
-    const r2 = await pageApi<{ id: string; number: number }>(page, `/designs/${fork.id}/revisions`, {
-      method: 'POST',
-      json: { generatorId: r1.generatorId, params: { ...r1.params, wideEnd: Number(r1.params.wideEnd) + 4.2 }, message: 'Wider at the foot for the Otterbrook benches', status: 'draft' },
-    });
-    expect(r2.number).toBe(2);
+    // From the design page: "New revision from these parameters" opens the generator with r1's values.
+    await page.goto(`${baseUrl()}/designs/${fork.id}`);
+    await shown(page.getByRole('link', { name: /New revision from r1/ })).first().click();
+    await page.waitForURL(/\/generators\/taper-jig\?revision=/, { timeout: 30000 });
+    const wide = shown(page.getByLabel('Wide end', { exact: true })).first();
+    await wide.waitFor({ timeout: 30000 });
+    await wide.fill(String(Number(r1.params.wideEnd) + 4.2));
+    await shown(page.getByLabel('What changed')).first().fill('Wider at the foot for the Otterbrook benches');
+    await page.waitForTimeout(600); // the preview settles (debounced) before saving
+    await shown(page.getByRole('button', { name: 'Save as new revision' })).first().click();
+    await page.waitForURL(new RegExp(`/designs/${fork.id}\\?r=2`), { timeout: 30000 });
+    const design = await pageApi<{ revisions: { id: string; number: number; params: Record<string, number> }[] }>(page, `/designs/${fork.id}`);
+    const r2 = design.revisions.find((r) => r.number === 2)!;
+    expect(r2.params.wideEnd).toBeCloseTo(Number(r1.params.wideEnd) + 4.2, 9);
     await page.goto(`${baseUrl()}/revisions/${r2.id}`);
     await shown(page.getByText('Wider at the foot for the Otterbrook benches')).waitFor({ timeout: 30000 });
     await shown(page.getByRole('heading', { name: 'r2', exact: true })).waitFor();

@@ -114,6 +114,8 @@ describe('difference table text', () => {
     expect(formatDelta({ delta: 10, unit: 'mm' }, 'in')).toBe('+0.394 in');
     expect(formatDelta({ delta: -2.8, unit: 'mm' }, 'mm')).toBe('−2.8 mm');
     expect(formatDelta({ delta: 0, unit: 'mm' }, 'mm')).toBe('±0.0 mm');
+    expect(formatDelta({ delta: -0.04, unit: 'mm' }, 'mm')).toBe('−0.04 mm'); // a real change never reads ±0
+    expect(formatDelta({ delta: 0.01, unit: 'mm' }, 'in')).toBe('+0.0004 in');
     expect(formatDelta({ delta: 645.16, unit: 'mm2' }, 'in')).toBe('+1.00 in²');
     expect(formatDelta({ delta: 2, unit: null }, 'mm')).toBe('+2');
     expect(formatDelta({ delta: null, unit: null }, 'mm')).toBeNull();
@@ -126,5 +128,19 @@ describe('difference table text', () => {
       { section: 'parameters', key: 'b', a: 1, b: 2, delta: 1, unit: null, changed: true },
     ] as const;
     expect(changedFirst([...rows]).map((r) => r.key)).toEqual(['b', 'a']);
+  });
+});
+
+describe('pathsInFrame writes arcs and circles where makerjs would', () => {
+  it('draws a quarter arc and a circle with the y axis flipped (checked against makerjs extents)', () => {
+    // Quarter arc of radius 10 about (10, 0) from 0° to 90°: (20, 0) to (10, 10), counter-clockwise.
+    const m: makerjs.IModel = { paths: { a: new makerjs.paths.Arc([10, 0], 10, 0, 90), c: new makerjs.paths.Circle([40, 5], 5), l: new makerjs.paths.Line([0, 0], [45, 0]) } };
+    const frame = unionFrame([m])!;
+    expect([frame.width, frame.height]).toEqual([45, 10]);
+    const [p] = pathsInFrame(m, frame);
+    expect(p.layer).toBe('0');
+    expect(p.d).toContain('M20 10A10 10 0 0 0 10 0'); // y 0 → 10 (bottom), y 10 → 0 (top)
+    expect(p.d).toContain('M45 5A5 5 0 0 0 35 5A5 5 0 0 0 45 5');
+    expect(p.d).toContain('M0 10L45 10');
   });
 });
