@@ -5,7 +5,7 @@
 // stops everything. Passes when every answer is 2xx (none is expected to be anything else), no
 // request errors or times out, at least 75 % of the target rate was answered, and the server's
 // resident memory (VmRSS, /proc/<pid>/status) grows by at most 10 % from the end of the warm-up
-// to the end of the run (lowest RSS in the last 10 s of each, see below).
+// to the end of the run (taken from a line fitted through every sample, see below).
 // Also imported by tests/api/soak.test.ts for the one-minute version inside `npm test`.
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
@@ -19,8 +19,8 @@ const MAX_GROWTH = 0.1;
 /** The share of the target rate that must be answered (a saturated machine answers fewer, later). */
 const MIN_THROUGHPUT = 0.75;
 
-function tsxProcess(script, env, stdio = ['ignore', 'ignore', 'pipe']) {
-  return spawn(process.execPath, ['--import', 'tsx', script], { cwd: repoRoot, env: { ...process.env, ...env }, stdio });
+function tsxProcess(script, env, stdio = ['ignore', 'ignore', 'pipe'], args = []) {
+  return spawn(process.execPath, ['--import', 'tsx', script, ...args], { cwd: repoRoot, env: { ...process.env, ...env }, stdio });
 }
 
 /** `pg_ctl stop -m fast -w`: returns once PostgreSQL has exited, so its folder can be removed. */
@@ -35,6 +35,17 @@ async function pgCtlStop(pgdata) {
 function rssKb(pid) {
   const status = fs.readFileSync(`/proc/${pid}/status`, 'utf8');
   return Number(/VmRSS:\s+(\d+)\s+kB/.exec(status)?.[1] ?? NaN);
+}
+
+/** The least-squares line through points [x, y]. */
+function leastSquares(points) {
+  const n = points.length;
+  const mx = points.reduce((a, p) => a + p[0], 0) / n;
+  const my = points.reduce((a, p) => a + p[1], 0) / n;
+  const sxx = points.reduce((a, p) => a + (p[0] - mx) ** 2, 0);
+  const sxy = points.reduce((a, p) => a + (p[0] - mx) * (p[1] - my), 0);
+  const slope = sxx > 0 ? sxy / sxx : 0;
+  return { slope, at: (x) => my + slope * (x - mx) };
 }
 
 const median = (xs) => {
@@ -191,14 +202,23 @@ export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(60,
     const result = await instance;
     clearInterval(sampler);
     const alive = server.exitCode === null && server.signalCode === null;
+    // Objects no row refers to, as `npm run sweep -- --dry-run --grace 0` sees them after the run.
+    const sweep = tsxProcess('server/cli/sweep.ts', env, ['ignore', 'pipe', 'pipe'], ['--dry-run', '--grace', '0']);
+    let sweepOut = '';
+    sweep.stdout.on('data', (c) => (sweepOut += c));
+    await new Promise((r) => sweep.once('exit', r));
+    const orphans = Number(/would remove (\d+) orphan/.exec(sweepOut)?.[1] ?? NaN);
 
-    // RSS rises and falls with each garbage collection; a leak shows as a rising floor. So the
-    // figures compared are the lowest RSS in the last 10 s of the warm-up and in the last 10 s.
+    // RSS rises and falls by tens of MiB with each garbage collection, so two single readings say
+    // little. Growth is taken from a least-squares line through every sample after the warm-up:
+    // its value at the end against its value at the end of the warm-up. A leak is a rising line.
+    const after = samples.filter((s) => s.t >= warmup);
+    const fit = leastSquares(after.map((s) => [s.t, s.kb]));
+    const rssWarmKb = Math.round(fit.at(warmup));
+    const rssEndKb = Math.round(fit.at(seconds));
+    const growth = (rssEndKb - rssWarmKb) / rssWarmKb;
     const warm = samples.filter((s) => s.t > warmup - 10 && s.t <= warmup).map((s) => s.kb);
     const end = samples.filter((s) => s.t > seconds - 10).map((s) => s.kb);
-    const rssWarmKb = Math.min(...warm);
-    const rssEndKb = Math.min(...end);
-    const growth = (rssEndKb - rssWarmKb) / rssWarmKb;
     const summary = {
       seconds,
       rate,
@@ -216,13 +236,14 @@ export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(60,
       rssMaxKb: Math.max(...samples.map((x) => x.kb)),
       rssGrowthPct: Math.round(growth * 1000) / 10,
       alive,
+      orphans,
       unexpected,
       ok: false,
     };
-    summary.ok = alive && result.non2xx === 0 && result.errors === 0 && result.timeouts === 0 && Number.isFinite(growth) && growth <= MAX_GROWTH && result.requests.total >= rate * seconds * MIN_THROUGHPUT;
+    summary.ok = alive && orphans === 0 && result.non2xx === 0 && result.errors === 0 && result.timeouts === 0 && Number.isFinite(growth) && growth <= MAX_GROWTH && result.requests.total >= rate * seconds * MIN_THROUGHPUT;
     if (!alive) summary.serverStderr = serverErr;
     log(
-      `${summary.requests} requests (${summary.perSecond}/s), non-2xx ${summary.non2xx}, errors ${summary.errors}, timeouts ${summary.timeouts}, p99 ${summary.latencyP99Ms} ms; RSS floor ${Math.round(rssWarmKb / 1024)} MiB after warm-up → ${Math.round(rssEndKb / 1024)} MiB at the end (${summary.rssGrowthPct} %, limit ${MAX_GROWTH * 100} %; medians ${Math.round(summary.rssMedianWarmKb / 1024)} → ${Math.round(summary.rssMedianEndKb / 1024)} MiB, peak ${Math.round(summary.rssMaxKb / 1024)} MiB): ${summary.ok ? 'passed' : 'FAILED'}`,
+      `${summary.requests} requests (${summary.perSecond}/s), non-2xx ${summary.non2xx}, errors ${summary.errors}, timeouts ${summary.timeouts}, p99 ${summary.latencyP99Ms} ms, orphan objects ${orphans}; RSS (fitted line) ${Math.round(rssWarmKb / 1024)} MiB after warm-up → ${Math.round(rssEndKb / 1024)} MiB at the end (${summary.rssGrowthPct} %, limit ${MAX_GROWTH * 100} %; medians of the first and last 10 s ${Math.round(summary.rssMedianWarmKb / 1024)} → ${Math.round(summary.rssMedianEndKb / 1024)} MiB, peak ${Math.round(summary.rssMaxKb / 1024)} MiB): ${summary.ok ? 'passed' : 'FAILED'}`,
     );
     if (unexpected.length) log(`unexpected answers: ${unexpected.join(' | ')}`);
     return summary;

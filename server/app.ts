@@ -58,7 +58,18 @@ export function createApp(deps: Deps) {
       crossOriginEmbedderPolicy: false,
     }),
   );
-  app.use(pinoHttp({ logger: deps.log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  // One short line per request: method, path, status and time. Never headers: they carry session cookies and tokens.
+  app.use(
+    pinoHttp({
+      logger: deps.log,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      serializers: {
+        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url.split('?')[0] }),
+        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+      },
+      redact: ['req.headers.cookie', 'req.headers.authorization'],
+    }),
+  );
   app.use(cookieParser());
 
   const api = buildApi(deps);

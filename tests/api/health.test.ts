@@ -56,3 +56,25 @@ describe('health when services are down', () => {
     }
   });
 });
+
+describe('request log', () => {
+  it('writes method, path and status, and never the session cookie or token', async () => {
+    const ctx = await createTestContext();
+    try {
+      const pino = (await import('pino')).default;
+      const { createApp } = await import('../../server/app');
+      const supertest = (await import('supertest')).default;
+      const lines: string[] = [];
+      const log = pino({ level: 'info' }, { write: (s: string) => lines.push(s) });
+      const app = createApp({ ...ctx.deps, log }).app;
+      await supertest(app).get('/api/no-such-thing?x=1').set('Cookie', 'jw_session=secret-cookie-value').set('Authorization', 'Bearer secret-token-value');
+      const text = lines.join('');
+      expect(text).toContain('"url":"/api/no-such-thing"');
+      expect(text).toContain('"statusCode":404');
+      expect(text).not.toContain('secret-cookie-value');
+      expect(text).not.toContain('secret-token-value');
+    } finally {
+      await ctx.close();
+    }
+  });
+});
