@@ -134,6 +134,10 @@ export async function benchLibrary(stack: BenchStack, baseUrl: string): Promise<
     await closedLoop(LIST_CONNECTIONS, 500, 60, async () => void (await pool.query(compiled.sql, compiled.parameters as unknown[])));
     const base = await closedLoop(LIST_CONNECTIONS, LIST_AMOUNT, 120, async () => void (await pool.query(compiled.sql, compiled.parameters as unknown[])));
     requireAll(base, 0, LIST_AMOUNT, 'direct query');
+    // The floor of any signed-in request at this concurrency: GET /api/me (session check + the
+    // caller's shops), no library query.
+    const me = await cannon({ url: `${baseUrl}/api/me`, connections: LIST_CONNECTIONS, amount: LIST_AMOUNT, maxSeconds: 120, headers });
+    requireAll(me, 200, LIST_AMOUNT, 'GET /api/me');
     const loadAfter = loadText();
 
     const a95 = percentile(api.latencies, 95);
@@ -155,7 +159,7 @@ export async function benchLibrary(stack: BenchStack, baseUrl: string): Promise<
         },
       ],
       notes: [
-        `Row 3: seeded ${seeded.designs.toLocaleString('en-US')} designs and ${seeded.revisions.toLocaleString('en-US')} revisions in ${seedSeconds.toFixed(1)} s, all in one invented shop; the query \`${qs}\` matches ${matching.rows[0].n} designs (sorted by last change, newest first). The API request signs in with a Bearer token (session check + membership check + the list query: 3 queries). Baseline pool: ${stack.deps().config.databasePoolMax} connections, the server's DATABASE_POOL_MAX, with ${LIST_CONNECTIONS} callers. Load average before / after: ${loadBefore} → ${loadAfter}. API: ${statusText(api, 200)}.`,
+        `Row 3: seeded ${seeded.designs.toLocaleString('en-US')} designs and ${seeded.revisions.toLocaleString('en-US')} revisions in ${seedSeconds.toFixed(1)} s, all in one invented shop; the query \`${qs}\` matches ${matching.rows[0].n} designs (sorted by last change, newest first). The API request signs in with a Bearer token (session check + membership check + the list query: 3 queries). Baseline pool: ${stack.deps().config.databasePoolMax} connections, the server's DATABASE_POOL_MAX, with ${LIST_CONNECTIONS} callers. For scale, GET /api/me at the same concurrency and count (a signed-in request without the library query): p50 ${ms(percentile(me.latencies, 50))}, p95 ${ms(percentile(me.latencies, 95))}, ${Math.round(me.rate)} req/s. Load average before / after: ${loadBefore} → ${loadAfter}. API: ${statusText(api, 200)}.`,
       ],
       plan,
       sql: compiled,

@@ -7,10 +7,10 @@ import path from 'node:path';
 import { repoRoot } from '../scripts/lib/services.mjs';
 import { bigMixedDxf } from './dxfFile';
 import { judge, type Row } from './lib/report';
-import { mb, median, ms, ratio } from './lib/stats';
+import { MB, mb, median, ms, ratio } from './lib/stats';
 
 const RUNS = 3;
-const MAX_RSS = 300 * 1024 * 1024;
+const MAX_RSS = 300 * MB;
 
 interface ChildResult {
   mode: string;

@@ -133,7 +133,7 @@ async function main() {
     '',
     table,
     '',
-    `${passed} of ${rows.length} rows meet their targets.`,
+    `${passed} of ${rows.length} rows meet their targets. Percentiles are nearest-rank over every request or run; MB = 10^6 bytes.`,
     '',
     '## Notes',
     '',

@@ -15,7 +15,7 @@ import { openBrowser, WIDE } from '../tests/browser/browser';
 import { apiJson, signIn } from './api';
 import { twoLayerDxf, zigzagDxf } from './dxfFile';
 import { errorRow, judge, type Row } from './lib/report';
-import { loadText, mb, median, ms, ratio } from './lib/stats';
+import { loadText, MB, mb, median, ms, ratio } from './lib/stats';
 import type { BenchStack } from './stack';
 
 const FCP_RUNS = 5;
@@ -244,7 +244,17 @@ async function drawingRows(b: Browser, stack: BenchStack, baseUrl: string): Prom
     await page.goto(`${baseUrl}/help/safety`);
     await page.evaluate((id) => localStorage.setItem('jigwright.currentShop', id), stack.seed.shopId);
     await page.goto(url, { waitUntil: 'load' });
-    await page.waitForFunction(() => (window as unknown as { __jwDraw?: { painted?: number } }).__jwDraw?.painted !== undefined, undefined, { timeout: 60_000 });
+    try {
+      await page.waitForFunction(() => (window as unknown as { __jwDraw?: { painted?: number } }).__jwDraw?.painted !== undefined, undefined, { timeout: 60_000 });
+    } catch (e) {
+      const seen = await page.evaluate(`(function (need, minLength) {
+        return need.map(function (n) {
+          var big = Array.prototype.filter.call(document.querySelectorAll(n[0] + ' path'), function (p) { return (p.getAttribute('d') || '').length > minLength; });
+          return n[0] + ': ' + big.length + ' of ' + n[1];
+        }).join(', ') + '; page text: ' + document.body.innerText.replace(/\\s+/g, ' ').slice(0, 160);
+      })(${args})`).catch(() => 'page not readable');
+      throw new Error(`${url.replace(baseUrl, '')} was not drawn within 60 s (${String(seen)}): ${(e as Error).message.split('\n')[0]}`);
+    }
     const t = await page.evaluate(() => {
       const s = (window as unknown as { __jwDraw: { dom: number; painted: number } }).__jwDraw;
       const ends = (performance.getEntriesByType('resource') as PerformanceResourceTiming[]).filter((e) => /\/api\/revisions\/[^/]+\/model$/.test(e.name)).map((e) => e.responseEnd);
@@ -313,7 +323,7 @@ export async function benchWeb(stack: BenchStack, baseUrl: string): Promise<Part
           baseline: `${mb(floor)} (react + react-dom + scheduler production builds)`,
           ratio: ratio(js.gzip, floor),
           target: '≤ 1.5 MB gzipped',
-          ...judge([{ ok: js.gzip <= 1.5 * 1024 * 1024, label: `${mb(js.gzip)} > 1.5 MB` }]),
+          ...judge([{ ok: js.gzip <= 1.5 * MB, label: `${mb(js.gzip)} > 1.5 MB` }]),
         },
       ],
       notes: [`Row 5a: ${js.files.map((f) => `${f.file} ${mb(f.raw)} → ${mb(f.gzip)} gzipped`).join('; ')} (gzip level 6, zlib's default). The baseline is the floor any React web app ships.`],

@@ -16,8 +16,10 @@ export function ms(v: number): string {
   return v < 10 ? `${v.toFixed(2)} ms` : v < 100 ? `${v.toFixed(1)} ms` : `${Math.round(v)} ms`;
 }
 
+/** Megabytes of 10^6 bytes (the stricter reading of a "300 MB" or "1.5 MB" target). */
+export const MB = 1_000_000;
 export function mb(bytes: number): string {
-  return `${(bytes / (1024 * 1024)).toFixed(2)} MB`;
+  return `${(bytes / MB).toFixed(bytes < 10 * MB ? 2 : 1)} MB`;
 }
 
 export function ratio(a: number, b: number): string {

@@ -526,6 +526,52 @@ describe('hostile path parameters and tokens', () => {
   }, 120_000);
 });
 
+// Not refusals: a drawing in the wrong units is still a drawing. What the importer does is flag a
+// part whose size says its units were probably misread (1 in = 25.4 mm exactly, 16 CFR 500.19), on
+// inspect (before anything is saved) and on upload. The window, 10 mm to 3050 mm on the longest
+// side, is server/revisions/geometry.ts PLAUSIBLE_SIZE_MM (common practice, from memory).
+describe('mm/inch mix-ups are flagged, not refused', () => {
+  const inspect = (body: Buffer, units?: string) => {
+    const req = ctx.http.post(`/api/designs/${env.designId}/uploads/inspect`).set(auth());
+    if (units) req.field('units', units);
+    return req.attach('file', body, 'part.dxf');
+  };
+
+  it('an inch drawing read as millimetres (25.4× too small) is flagged with its size in inches', async () => {
+    // 4.724 × 3.150: a 120 × 80 mm plate drawn in inches, in a file without $INSUNITS.
+    const r = await inspect(Buffer.from(dxfFile(rectLines(4.724, 3.15), null)), 'mm');
+    expect(r.status, JSON.stringify(r.body)).toBe(200);
+    expect(r.body.sizeCheck).toMatchObject({ problem: 'tiny', otherUnits: { units: 'in' } });
+    expect(r.body.sizeCheck.otherUnits.widthMm).toBeCloseTo(4.724 * 25.4, 1);
+    expect(r.body.warnings.join(' ')).toMatch(/drawn in inches/);
+    // Read as inches, the same file is a plausible part and is not flagged.
+    const asInches = await inspect(Buffer.from(dxfFile(rectLines(4.724, 3.15), null)), 'in');
+    expect(asInches.body.sizeCheck).toBeNull();
+    expect(asInches.body.summary.extents.width).toBeCloseTo(120, 1);
+  });
+
+  it('a millimetre drawing whose header says inches (25.4× too large) is flagged with its size in millimetres', async () => {
+    const r = await inspect(Buffer.from(dxfFile(rectLines(240, 160), 1)));
+    expect(r.status, JSON.stringify(r.body)).toBe(200);
+    expect(r.body.sizeCheck).toMatchObject({ problem: 'huge', otherUnits: { units: 'mm', widthMm: 240, heightMm: 160 } });
+    expect(r.body.warnings.join(' ')).toMatch(/drawn in millimetres/);
+  });
+
+  it('a plausible part is not flagged, and an upload carries the flag too', async () => {
+    expect((await inspect(Buffer.from(dxfFile(rectLines(240, 160), 4)))).body.sizeCheck).toBeNull();
+    const up = await ctx.http.post(`/api/designs/${env.designId}/revisions/upload`).set(auth()).field('message', 'tiny part').field('units', 'mm').attach('file', Buffer.from(dxfFile(rectLines(4.724, 3.15), null)), 'tiny.dxf');
+    expect(up.status, JSON.stringify(up.body)).toBe(201);
+    expect(up.body.sizeCheck).toMatchObject({ problem: 'tiny' });
+  });
+
+  it('a Latin-1 DXF keeps its layer names (Autodesk DXF Reference: pre-2007 files use the ANSI code page)', async () => {
+    const text = dxfFile(rectLines(100, 60, 'Kästchen'), 4);
+    const r = await inspect(Buffer.from(text, 'latin1'));
+    expect(r.status, JSON.stringify(r.body)).toBe(200);
+    expect(r.body.warnings.join(' ')).toContain('"Kästchen"');
+  });
+});
+
 describe('after every hostile case', () => {
   /** Public routes that take no input at all: nothing to send them that is wrong. */
   const NO_INPUT = ['GET /api/health', 'GET /api/generators', 'GET /api/calculators'];
