@@ -63,6 +63,14 @@ async function section<T extends { rows: Row[]; notes: string[] }>(name: string,
 
 const stub = (id: string, what: string, target: string) => ({ id, what, target }) as Row;
 
+/** The SQL as written in the repository, without its template's leading indentation. */
+function dedent(text: string): string {
+  const lines = text.replace(/^\n+|\s+$/g, '').split('\n');
+  const indents = lines.filter((l) => l.trim()).map((l) => /^ */.exec(l)![0].length);
+  const cut = Math.min(...indents);
+  return lines.map((l) => l.slice(cut)).join('\n');
+}
+
 function machine(): string {
   const memGiB = os.totalmem() / 1024 ** 3;
   let pgVersion = 'unknown';
@@ -144,7 +152,7 @@ async function main() {
     plan ? `Summary: ${plan.summary}` : 'No plan: row 3 did not run.',
     '',
     ...(plan
-      ? ['The query listDesigns sends (captured from Kysely):', '', '```sql', planSql.trim().replace(/\n\s+/g, '\n  '), '```', '', '`EXPLAIN (ANALYZE, BUFFERS)`, second run:', '', '```', plan.text, '```', '']
+      ? ['The query listDesigns sends (captured from Kysely):', '', '```sql', dedent(planSql), '```', '', '`EXPLAIN (ANALYZE, BUFFERS)`, second run:', '', '```', plan.text, '```', '']
       : []),
   ].join('\n');
   // A partial run (`npm run bench -- 3`) writes to the temporary folder, not over the full results.

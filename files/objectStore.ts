@@ -93,14 +93,16 @@ export class ObjectStore {
 
   async list(prefix = ''): Promise<string[]> {
     const keys: string[] = [];
-    const stream = this.client.listObjectsV2(this.bucket, prefix, true);
+    // ListObjects (v1, marker paging): the local fake answers 500 to v2's second page (more than
+    // 1000 keys), which broke the sweep on a well-used bucket. Both work against S3 itself.
+    const stream = this.client.listObjects(this.bucket, prefix, true);
     for await (const item of stream as AsyncIterable<{ name?: string }>) if (item.name) keys.push(item.name);
     return keys;
   }
 
   async listWithDates(prefix = ''): Promise<{ key: string; lastModified: Date }[]> {
     const out: { key: string; lastModified: Date }[] = [];
-    const stream = this.client.listObjectsV2(this.bucket, prefix, true);
+    const stream = this.client.listObjects(this.bucket, prefix, true);
     for await (const item of stream as AsyncIterable<{ name?: string; lastModified?: Date }>) {
       if (item.name) out.push({ key: item.name, lastModified: item.lastModified ?? new Date(0) });
     }

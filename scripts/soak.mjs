@@ -81,7 +81,7 @@ async function json(url, init = {}) {
  * Runs one soak. Returns the counts and memory figures; `ok` says whether it passed.
  * @param {{ seconds?: number, rate?: number, warmup?: number, connections?: number, every?: number, log?: (s: string) => void }} opts
  */
-export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(60, Math.round(seconds / 6)), connections = 16, every = 60, log = (s) => process.stdout.write(`[soak] ${s}\n`) } = {}) {
+export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(120, Math.round(seconds / 5)), connections = 16, every = 60, log = (s) => process.stdout.write(`[soak] ${s}\n`) } = {}) {
   const root = fs.mkdtempSync(path.join(os.tmpdir(), 'jw-soak-'));
   fs.chmodSync(root, 0o755);
   const stops = [];
@@ -271,6 +271,6 @@ if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.me
     return i >= 0 ? Number(process.argv[i + 1]) : fallback;
   };
   const seconds = arg('seconds', 600);
-  const summary = await runSoak({ seconds, rate: arg('rate', 200), warmup: arg('warmup', Math.min(60, Math.round(seconds / 6))), every: arg('every', 60) });
+  const summary = await runSoak({ seconds, rate: arg('rate', 200), warmup: arg('warmup', Math.min(120, Math.round(seconds / 5))), every: arg('every', 60) });
   process.exit(summary.ok ? 0 : 1);
 }
