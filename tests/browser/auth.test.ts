@@ -4,7 +4,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { uniqueEmail } from '../support/accounts';
 import { firstLink, Mailbox } from '../support/mailbox';
-import { PHONE, WIDE, baseUrl, openBrowser, screenshot } from './browser';
+import { PHONE, WIDE, baseUrl, openBrowser, resize, screenshot } from './browser';
 
 type Browser = Awaited<ReturnType<typeof openBrowser>>;
 const DEMO_OWNER = { email: 'owner@larchmere.example', password: 'larchmere-owner' };
@@ -72,12 +72,12 @@ describe('accounts, shops and invites in the browser', () => {
     await card.getByText('Larchmere Workshop').waitFor({ timeout: 30000 });
     expect(await newcomer.getByTestId('current-role').textContent()).toMatch(/^You are a viewer here/);
     await screenshot(newcomer, 'home-viewer-phone');
-    await newcomer.setViewportSize(WIDE);
+    await resize(newcomer, WIDE);
     await card.getByText('Larchmere Workshop').waitFor();
     await screenshot(newcomer, 'home-viewer-wide');
 
     // As a viewer the members screen is a list on the phone, without the owner's controls.
-    await newcomer.setViewportSize(PHONE);
+    await resize(newcomer, PHONE);
     await newcomer.goto(baseUrl() + '/shop/members');
     await newcomer.getByTestId('member-list').getByText('Linnea Brook (you)').waitFor({ timeout: 30000 });
     expect(await newcomer.getByTestId('invite-form').count()).toBe(0);

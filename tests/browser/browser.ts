@@ -2,7 +2,7 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { chromium, type BrowserContext, type Locator, type Page } from 'playwright-core';
 import { repoRoot } from '../../scripts/lib/services.mjs';
 
 export const PHONE = { width: 390, height: 844 };
@@ -42,4 +42,27 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   const file = path.join(artifactsDir, `${name}.png`);
   await page.screenshot({ path: file, fullPage: true });
   return file;
+}
+
+/**
+ * Sets the window size and waits until the page has laid itself out again: the app swaps between
+ * its phone and wide layouts at a breakpoint, which remounts parts of the screen.
+ */
+export async function resize(page: Page, viewport: { width: number; height: number }): Promise<void> {
+  await page.setViewportSize(viewport);
+  await page.waitForFunction((w) => window.innerWidth === w, viewport.width);
+  await page.evaluate(() => new Promise<void>((r) => requestAnimationFrame(() => requestAnimationFrame(() => r()))));
+}
+
+/** Scrolls an element into view, trying again if a re-render replaced it while it was found. */
+export async function bringIntoView(locator: Locator): Promise<void> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await locator.scrollIntoViewIfNeeded({ timeout: 10_000 });
+      return;
+    } catch (e) {
+      if (attempt >= 5 || !/not attached/i.test(String((e as Error).message))) throw e;
+      await new Promise((r) => setTimeout(r, 200));
+    }
+  }
 }

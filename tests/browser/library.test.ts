@@ -1,17 +1,19 @@
-// The library in the browser, as the demo editor: start a design, upload a hand-written DXF through
-// the upload screen (a damaged file and a file without units first, to see both answered in
-// place), check what was read before saving, save r1, fork it into the second demo shop and see
-// the lineage both ways, then download the DXF and read it back with dxf-parser.
+// The library in the browser, by two people. The demo shop's owner starts a design, uploads a
+// hand-written DXF through the upload screen (a damaged file and a file without units first, to see
+// both answered in place), checks what was read before saving and saves r1. The demo editor — a
+// different account, in a browser of their own — forks it into the second demo shop, sees the
+// lineage both ways, then downloads the DXF and reads it back with dxf-parser.
 // DXF facts from the Autodesk DXF Reference: HEADER $INSUNITS group 70, 4 = millimeters.
 import fs from 'node:fs';
 import DxfParserModule from 'dxf-parser';
 import type { BrowserContext, Locator, Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { circle, dxfFile, rectLines } from '../support/dxf';
-import { PHONE, WIDE, baseUrl, openBrowser, screenshot } from './browser';
+import { PHONE, WIDE, baseUrl, bringIntoView, openBrowser, resize, screenshot } from './browser';
 
 const DxfParser = ((DxfParserModule as any).default ?? DxfParserModule) as new () => { parseSync(t: string): any };
 
+const OWNER = { email: 'owner@larchmere.example', password: 'larchmere-owner' };
 const EDITOR = { email: 'editor@larchmere.example', password: 'larchmere-editor' };
 const TITLE = `Shelf insert with pad recess ${Date.now().toString(36)}`;
 // The server names downloads `<title>-r<N>.<ext>`, the title folded to lower-case words and dashes.
@@ -24,7 +26,7 @@ const DAMAGED_DXF = GOOD_DXF.slice(0, 90);
 
 type Browser = Awaited<ReturnType<typeof openBrowser>>;
 
-async function signIn(context: BrowserContext, who = EDITOR) {
+async function signIn(context: BrowserContext, who: { email: string; password: string }) {
   // context.request shares the browser's cookie jar, so the session cookie lands in the page too.
   const r = await context.request.post(`${baseUrl()}/api/auth/sign-in`, { data: who });
   expect(r.status(), await r.text()).toBe(200);
@@ -43,25 +45,36 @@ const shown = (l: Locator) => l.filter({ visible: true });
 const dxfUpload = (name: string, text: string) => ({ name, mimeType: 'application/dxf', buffer: Buffer.from(text) });
 
 describe('library, revisions and forks in the browser', () => {
-  let b: Browser;
+  let b: Browser; // the owner's browser
+  let other: Browser; // the editor's browser
   let shops: { id: string; name: string; role: string }[];
+  let editorShops: { id: string; name: string; role: string }[];
   let designUrl = '';
 
   beforeAll(async () => {
     b = await openBrowser(WIDE);
-    b.page.on('pageerror', (e) => console.error('[page error]', e.message));
-    shops = (await signIn(b.context)).shops;
+    other = await openBrowser(WIDE);
+    b.page.on('pageerror', (e) => console.error('[page error, owner]', e.message));
+    other.page.on('pageerror', (e) => console.error('[page error, editor]', e.message));
+    shops = (await signIn(b.context, OWNER)).shops;
+    editorShops = (await signIn(other.context, EDITOR)).shops;
   });
-  afterAll(async () => b?.close());
-  // A failing step leaves a picture of the screen it failed on.
+  afterAll(async () => {
+    await b?.close();
+    await other?.close();
+  });
+  // A failing step leaves a picture of the screens it failed on.
   afterEach(async (ctx) => {
-    if (ctx.task.result?.state === 'fail') await screenshot(b.page, `library-failed-${ctx.task.name.slice(0, 24).replace(/\W+/g, '-')}`).catch(() => {});
+    if (ctx.task.result?.state !== 'fail') return;
+    const name = ctx.task.name.slice(0, 24).replace(/\W+/g, '-');
+    await screenshot(b.page, `library-failed-${name}`).catch(() => {});
+    await screenshot(other.page, `library-failed-${name}-editor`).catch(() => {});
   });
 
   it('creates a design, checks an uploaded DXF before saving, and shows r1 with its fit notes', async () => {
     const { page } = b;
     const larchmere = shops.find((s) => s.name === 'Larchmere Workshop')!;
-    expect(larchmere.role).toBe('editor');
+    expect(larchmere.role).toBe('owner');
     await useShop(page, larchmere.id);
 
     await page.goto(baseUrl() + '/library');
@@ -115,10 +128,10 @@ describe('library, revisions and forks in the browser', () => {
     await page.getByTestId('device-length').fill('148');
     await page.getByTestId('revision-message').fill('First cut file from the shop drawing');
     await screenshot(page, 'upload-checked-wide');
-    await page.setViewportSize(PHONE);
-    await shown(page.getByTestId('inspect-result')).scrollIntoViewIfNeeded();
+    await resize(page, PHONE);
+    await bringIntoView(shown(page.getByTestId('inspect-result')));
     await screenshot(page, 'upload-checked-phone');
-    await page.setViewportSize(WIDE);
+    await resize(page, WIDE);
     await page.getByTestId('revision-save').click();
 
     await page.waitForURL(/\/designs\/[0-9a-f-]{36}\?r=1$/, { timeout: 30000 });
@@ -133,9 +146,9 @@ describe('library, revisions and forks in the browser', () => {
     await shown(page.getByTestId('revision-drawing')).waitFor();
     await screenshot(page, 'design-wide');
     // The frame scrolls inside the window: bring the lower parts into view for their own pictures.
-    await shown(page.getByTestId('downloads')).scrollIntoViewIfNeeded();
+    await bringIntoView(shown(page.getByTestId('downloads')));
     await screenshot(page, 'design-wide-downloads');
-    await shown(page.getByTestId('activity-log')).scrollIntoViewIfNeeded();
+    await bringIntoView(shown(page.getByTestId('activity-log')));
     await screenshot(page, 'design-wide-history');
 
     // An editor moves r1 on from draft; the history and the log both say so.
@@ -146,8 +159,12 @@ describe('library, revisions and forks in the browser', () => {
     await shown(page.getByTestId('revision-1')).getByText('Trial cut').waitFor();
   });
 
-  it('forks r1 into Otterbrook Makerspace and shows the lineage on both designs', async () => {
-    const { page } = b;
+  it('another member (the editor, signed in elsewhere) forks r1 into Otterbrook Makerspace and sees the lineage on both designs', async () => {
+    const { page } = other;
+    const larchmere = editorShops.find((s) => s.name === 'Larchmere Workshop')!;
+    expect(larchmere.role).toBe('editor');
+    expect(editorShops.find((s) => s.name === 'Otterbrook Makerspace')?.role).toBe('editor');
+    await useShop(page, larchmere.id);
     await page.goto(designUrl);
     await page.getByTestId('fork-open').click();
     const panel = page.getByTestId('fork-panel');
@@ -167,8 +184,8 @@ describe('library, revisions and forks in the browser', () => {
     await shown(page.getByTestId('lineage')).getByText('in Otterbrook Makerspace, from r1', { exact: false }).waitFor();
   });
 
-  it('downloads r1 as a DXF named <title>-r1.dxf that reads back in millimetres', async () => {
-    const { page } = b;
+  it('the editor downloads r1 as a DXF named <title>-r1.dxf that reads back in millimetres', async () => {
+    const { page } = other;
     await page.goto(designUrl);
     const link = page.getByTestId('download-dxf-mm');
     await link.waitFor({ timeout: 30000 });
@@ -216,21 +233,21 @@ describe('library, revisions and forks in the browser', () => {
     await page.getByRole('link', { name: TITLE }).waitFor();
     await screenshot(page, 'library-wide');
 
-    await page.setViewportSize(PHONE);
+    await resize(page, PHONE);
     await page.getByRole('list', { name: 'Designs' }).getByRole('link', { name: `Open ${TITLE}` }).waitFor({ timeout: 30000 });
     await screenshot(page, 'library-phone');
-    await shown(page.getByRole('list', { name: 'Designs' })).scrollIntoViewIfNeeded();
+    await bringIntoView(shown(page.getByRole('list', { name: 'Designs' })));
     await screenshot(page, 'library-phone-cards');
     await page.getByRole('link', { name: `Open ${TITLE}` }).click();
     await shown(page.getByTestId('selected-revision')).waitFor({ timeout: 30000 });
     await shown(page.getByTestId('fit-notes')).waitFor();
     await screenshot(page, 'design-phone');
-    await shown(page.getByTestId('fit-notes')).scrollIntoViewIfNeeded();
+    await bringIntoView(shown(page.getByTestId('fit-notes')));
     await screenshot(page, 'design-phone-notes');
-    await shown(page.getByTestId('downloads')).scrollIntoViewIfNeeded();
+    await bringIntoView(shown(page.getByTestId('downloads')));
     await screenshot(page, 'design-phone-downloads');
-    await shown(page.getByTestId('revision-history')).scrollIntoViewIfNeeded();
+    await bringIntoView(shown(page.getByTestId('revision-history')));
     await screenshot(page, 'design-phone-history');
-    await page.setViewportSize(WIDE);
+    await resize(page, WIDE);
   });
 });

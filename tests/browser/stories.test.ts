@@ -8,7 +8,7 @@ import DxfParserModule from 'dxf-parser';
 import type { BrowserContext, Locator, Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { dxfFile, line } from '../support/dxf';
-import { PHONE, WIDE, baseUrl, openBrowser, screenshot } from './browser';
+import { PHONE, WIDE, baseUrl, bringIntoView, openBrowser, resize, screenshot } from './browser';
 
 const DxfParser = ((DxfParserModule as any).default ?? DxfParserModule) as new () => { parseSync(t: string): any };
 
@@ -66,11 +66,11 @@ async function useShop(page: Page, shopId: string) {
 /** Takes a picture at the wide size, then at the phone size, scrolled to `focus`, and back. */
 async function bothSizes(page: Page, name: string, focus?: () => Locator) {
   await screenshot(page, `${name}-wide`);
-  await page.setViewportSize(PHONE);
+  await resize(page, PHONE);
   await page.waitForTimeout(300);
-  if (focus) await shown(focus()).first().scrollIntoViewIfNeeded();
+  if (focus) await bringIntoView(shown(focus()).first());
   await screenshot(page, `${name}-phone`);
-  await page.setViewportSize(WIDE);
+  await resize(page, WIDE);
   await page.waitForTimeout(300);
 }
 
@@ -177,15 +177,15 @@ describe('revision, compare and cut-log stories', () => {
     await bothSizes(page, 'compare-regenerated', () => page.getByTestId('compare-overlay'));
     await shown(page.getByRole('radio', { name: 'inches' })).click();
     expect(await row.textContent()).toBe(`+${(expected / 25.4).toFixed(3)} in`);
-    await shown(page.getByTestId('diff-table')).scrollIntoViewIfNeeded();
+    await bringIntoView(shown(page.getByTestId('diff-table')));
     await screenshot(page, 'compare-table-inches-wide');
-    await page.setViewportSize(PHONE);
+    await resize(page, PHONE);
     await shown(page.getByRole('radio', { name: /^A · r/ })).click();
     await shown(page.getByTestId('compare-pane-a')).waitFor();
     await screenshot(page, 'compare-pane-a-phone');
-    await shown(page.getByTestId('diff-table')).scrollIntoViewIfNeeded();
+    await bringIntoView(shown(page.getByTestId('diff-table')));
     await screenshot(page, 'compare-table-phone');
-    await page.setViewportSize(WIDE);
+    await resize(page, WIDE);
     await shown(page.getByRole('radio', { name: 'mm' })).click();
   });
 
@@ -267,7 +267,7 @@ describe('revision, compare and cut-log stories', () => {
     // A viewer sees the log but no form, and no regenerate.
     await shown(page.getByText('Viewers see the log; editors record cuts.')).waitFor();
     expect(await shown(page.getByTestId('regenerate')).count()).toBe(0);
-    await shown(page.getByTestId('files')).scrollIntoViewIfNeeded();
+    await bringIntoView(shown(page.getByTestId('files')));
     await bothSizes(page, 'viewer-files', () => page.getByTestId('files'));
     const [download] = await Promise.all([page.waitForEvent('download'), shown(page.getByTestId('download-dxf-mm')).click()]);
     const file = await download.path();
