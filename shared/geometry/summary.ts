@@ -124,19 +124,22 @@ function contoursOfLayer(paths: { path: makerjs.IPath; offset: makerjs.IPoint }[
   const cells = new Map<string, number>();
   const nodePos: Pt[] = [];
   const nodeOf = (p: Pt): number => {
-    const ix = Math.round(p[0] * GRID);
-    const iy = Math.round(p[1] * GRID);
-    const hit = cells.get(`${ix},${iy}`);
+    const fx = p[0] * GRID;
+    const fy = p[1] * GRID;
+    const ix = Math.round(fx);
+    const iy = Math.round(fy);
+    const key = `${ix},${iy}`;
+    const hit = cells.get(key);
     if (hit !== undefined) return hit;
-    for (let dx = -1; dx <= 1; dx++) {
-      for (let dy = -1; dy <= 1; dy++) {
-        const n = cells.get(`${ix + dx},${iy + dy}`);
-        if (n !== undefined) return n;
-      }
-    }
+    // A joint less than half a grid step away that rounded into a neighbouring cell lies on the
+    // side this point's fraction points to: only those three neighbours need looking at.
+    const sx = fx >= ix ? 1 : -1;
+    const sy = fy >= iy ? 1 : -1;
+    const near = cells.get(`${ix + sx},${iy}`) ?? cells.get(`${ix},${iy + sy}`) ?? cells.get(`${ix + sx},${iy + sy}`);
+    if (near !== undefined) return near;
     const id = nodePos.length;
     nodePos.push(p);
-    cells.set(`${ix},${iy}`, id);
+    cells.set(key, id);
     return id;
   };
   for (const { path, offset } of paths) {

@@ -7,7 +7,9 @@ import path from 'node:path';
 import DxfParserModule from 'dxf-parser';
 import makerjs from 'makerjs';
 import { afterAll, describe, expect, it } from 'vitest';
-import { DXF_ACCURACY, modelToDxf } from '../../files/dxf/export';
+import { DXF_ACCURACY, finiteExtents, modelToDxf } from '../../files/dxf/export';
+import { GENERATORS, runGenerator } from '../../shared/generators';
+import { defaultParams } from '../../shared/params';
 import { importDxf } from '../../files/dxf/import';
 import { importSvg } from '../../files/svg/import';
 
@@ -141,15 +143,41 @@ describe('modelToDxf', () => {
     for (const k of ['minX', 'minY', 'maxX', 'maxY'] as const) expect(Math.abs(a[k] - b[k])).toBeLessThanOrEqual(25.4 * 2 * DXF_ACCURACY);
   });
 
-  it('does not change the model it is given', () => {
+  it('does not change the model it is given, in either unit', () => {
     const model = jigPlate();
     const before = JSON.stringify(model);
     modelToDxf(model, 'in');
+    modelToDxf(model, 'mm');
     expect(JSON.stringify(model)).toBe(before);
+  });
+
+  // The header's extents come from our own one-pass measure; makerjs's measure.modelExtents (the
+  // library's reference implementation) must agree on every generator's drawing and on nested origins.
+  it('measures the same extents as makerjs.measure.modelExtents', () => {
+    const nested: makerjs.IModel = {
+      origin: [5, -3],
+      models: { a: { origin: [10, 10], paths: { arc: new makerjs.paths.Arc([0, 0], 7, 20, 160) }, models: { b: { origin: [-40, 2], paths: { c: new makerjs.paths.Circle([1, 1], 2) } } } } },
+      paths: { l: new makerjs.paths.Line([0, 0], [3, 4]) },
+    };
+    const models = [nested, jigPlate(), ...GENERATORS.map((g) => {
+      const run = runGenerator(g.id, defaultParams(g.params));
+      if (!run.ok) throw new Error(run.message);
+      return run.result.model;
+    })];
+    for (const m of models) {
+      const ours = finiteExtents(m)!;
+      const theirs = makerjs.measure.modelExtents(m);
+      for (const i of [0, 1]) {
+        expect(ours.low[i]).toBeCloseTo(theirs.low[i], 9);
+        expect(ours.high[i]).toBeCloseTo(theirs.high[i], 9);
+      }
+    }
+    expect(finiteExtents({})).toBeNull();
   });
 
   it('refuses a model that is not in millimetres or holds a NaN', () => {
     expect(() => modelToDxf({ units: makerjs.unitType.Inch, paths: { a: new makerjs.paths.Line([0, 0], [1, 1]) } }, 'mm')).toThrow(/millimetres/);
     expect(() => modelToDxf({ paths: { a: new makerjs.paths.Line([0, 0], [NaN, 1]) } }, 'mm')).toThrow(/not a finite number/);
+    expect(() => modelToDxf({ models: { m: { origin: [Infinity, 0], paths: { a: new makerjs.paths.Line([0, 0], [1, 1]) } } } }, 'in')).toThrow(/not a finite number/);
   });
 });
