@@ -63,13 +63,26 @@ export function enforce(deps: Deps, policy: Policy): RequestHandler {
     }
     const claims = await readSessionToken(config, presented.token);
     if (!claims) throw unauthorized('Your sign-in is not valid; sign in again');
-    const user = await sessionUser(db, claims.sessionId, claims.userId);
-    if (!user) throw unauthorized('Your session has ended; sign in again');
+    // The session check and the shop lookup go to the database side by side: the token's user id
+    // is already verified (signed), and nothing found for the shop is used before the session
+    // itself has been confirmed live below.
+    const shopLookup: Promise<{ shopId: string | null; role: Role | null }> | null =
+      policy.kind === 'shop'
+        ? policy.shop(req, deps).then(async (shopId) => ({ shopId, role: shopId ? await roleIn(db, shopId, claims.userId) : null }))
+        : null;
+    shopLookup?.catch(() => undefined); // answered below, after the session check
+    const user = await sessionUser(db, claims.sessionId, claims.userId).catch(async (e) => {
+      await shopLookup?.catch(() => undefined);
+      throw e;
+    });
+    if (!user) {
+      await shopLookup?.catch(() => undefined);
+      throw unauthorized('Your session has ended; sign in again');
+    }
     const auth: AuthInfo = { user: { id: user.id, email: user.email, name: user.name }, sessionId: claims.sessionId };
 
-    if (policy.kind === 'shop') {
-      const shopId = await policy.shop(req, deps);
-      const role = shopId ? await roleIn(db, shopId, user.id) : null;
+    if (shopLookup && policy.kind === 'shop') {
+      const { shopId, role } = await shopLookup;
       // Outsiders learn nothing: a shop they are not in looks the same as one that does not exist.
       if (!shopId || !role) throw notFound('Not found, or not shared with you');
       if (ROLE_RANK[role] < ROLE_RANK[policy.role]) throw forbidden(needsRoleMessage(policy.role, role));

@@ -166,7 +166,7 @@ describe('modelToDxf', () => {
     })];
     for (const m of models) {
       const ours = finiteExtents(m)!;
-      const theirs = makerjs.measure.modelExtents(m);
+      const theirs = makerjs.measure.modelExtents(m)!;
       for (const i of [0, 1]) {
         expect(ours.low[i]).toBeCloseTo(theirs.low[i], 9);
         expect(ours.high[i]).toBeCloseTo(theirs.high[i], 9);
