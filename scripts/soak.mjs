@@ -6,7 +6,7 @@
 // request errors or times out, at least 75 % of the target rate was answered, and the server's
 // resident memory (VmRSS, /proc/<pid>/status) grows by at most 10 % from the end of the warm-up
 // to the end of the run (taken from a line fitted through every sample, see below).
-// Also imported by tests/api/soak.test.ts for the one-minute version inside `npm test`.
+// Also imported by tests/soak/soak.test.ts for the one-minute version inside `npm test`.
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';

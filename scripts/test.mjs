@@ -1,5 +1,5 @@
 // `npm test`: typecheck, unit + API suites (vitest, supertest), then the browser suite against the
-// real server (playwright-core + Debian's Chromium). Each suite starts its own services in a
+// real server (playwright-core + Debian's Chromium), then the one-minute soak (scripts/soak.mjs). Each suite starts its own services in a
 // temporary folder; the demo data under .data/ is never touched. Ends with "N passed, N failed".
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
@@ -63,6 +63,8 @@ if (want('browser')) {
   }
   if (built) vitest('browser suite', 'vitest.browser.config.mts');
 }
+// Last and alone: the soak's memory check needs a machine that is not running other suites.
+if (want('soak')) vitest('soak', 'vitest.soak.config.mts');
 
 const tail = totals.skipped ? `, ${totals.skipped} skipped` : '';
 console.log(`\n${totals.passed} passed, ${totals.failed} failed${tail}`);

@@ -1,20 +1,22 @@
 // The one-minute soak inside `npm test` (the ten-minute one is `npm run soak`): scripts/soak.mjs
 // starts its own cluster, fakes and API process, sends mixed reads and writes at a fixed rate to
-// 127.0.0.1 for 60 s with autocannon, and stops everything. Every answer must be 2xx, nothing may
-// error or time out, and the server's RSS may grow by at most 10 % after the warm-up.
-// 60 requests/s here: this runs beside the other suites on two cores.
+// 127.0.0.1 with autocannon at the ten-minute soak's rate (200 requests/s), and stops everything.
+// Every answer must be 2xx, nothing may error or time out, and the server's RSS may grow by at most
+// 10 % over the measured minute. The first 30 s are warm-up: V8 sizes its heap under load in that
+// time (heapTotal ~70 → ~105 MiB, measured), which is not a leak. `npm test` runs this file alone,
+// after the other suites (scripts/test.mjs).
 import { describe, expect, it } from 'vitest';
 import { runSoak } from '../../scripts/soak.mjs';
 
 describe('soak, one minute', () => {
-  it('60 s of mixed traffic: no error, RSS growth ≤ 10 %', async () => {
-    const s = await runSoak({ seconds: 60, rate: 60, warmup: 15, every: 20, log: (line: string) => console.log(`[soak] ${line}`) });
+  it('30 s warm-up, then 60 s of mixed traffic at 200 requests/s: no error, RSS growth ≤ 10 %', async () => {
+    const s = await runSoak({ seconds: 90, rate: 200, warmup: 30, every: 30, log: (line: string) => console.log(`[soak] ${line}`) });
     console.log(`[soak] cases tried: ${s.requests} requests, failures: ${s.non2xx + s.errors + s.timeouts} (non-2xx ${s.non2xx}, errors ${s.errors}, timeouts ${s.timeouts}), orphans found: ${s.orphans}; RSS growth ${s.rssGrowthPct} %`);
     expect(s.alive, 'the server process died').toBe(true);
     expect(s.unexpected).toEqual([]);
     expect(s.orphans).toBe(0);
     expect({ non2xx: s.non2xx, errors: s.errors, timeouts: s.timeouts }).toEqual({ non2xx: 0, errors: 0, timeouts: 0 });
-    expect(s.requests).toBeGreaterThanOrEqual(60 * 60 * 0.75);
+    expect(s.requests).toBeGreaterThanOrEqual(90 * 200 * 0.75);
     expect(s.rssGrowthPct).toBeLessThanOrEqual(10);
     expect(s.ok).toBe(true);
   }, 180_000);
