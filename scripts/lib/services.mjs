@@ -134,7 +134,7 @@ export async function startPostgres({ dataDir, port, fast = false }) {
   }
   const stalePid = path.join(pgdata, 'postmaster.pid');
   if (fs.existsSync(stalePid)) {
-    const pid = Number(fs.readFileSync(stalePid, 'utf8').split('\n')[0]);
+    const pid = postmasterPid(pgdata);
     let alive = false;
     try { process.kill(pid, 0); alive = true; } catch { /* not running */ }
     if (alive) throw new Error(`PostgreSQL already runs on this data folder (pid ${pid}); stop the other npm start first`);
@@ -155,8 +155,26 @@ export async function startPostgres({ dataDir, port, fast = false }) {
     url: `postgres://postgres@127.0.0.1:${port}/postgres`,
     port,
     child,
-    stop: () => stopChild(child, 'SIGINT', () => exited),
+    stop: async () => {
+      if (exited) return;
+      // As root the child is runuser, which does not pass signals on: send the fast-shutdown
+      // signal to the postmaster itself (its pid is the first line of postmaster.pid).
+      const pid = postmasterPid(pgdata);
+      if (pid) {
+        try { process.kill(pid, 'SIGINT'); } catch { /* already gone */ }
+      }
+      await stopChild(child, 'SIGINT', () => exited);
+    },
   };
+}
+
+function postmasterPid(pgdata) {
+  try {
+    const pid = Number(fs.readFileSync(path.join(pgdata, 'postmaster.pid'), 'utf8').split('\n')[0]);
+    return Number.isInteger(pid) && pid > 0 ? pid : null;
+  } catch {
+    return null;
+  }
 }
 
 async function waitForPostgresReady(bin, port) {
