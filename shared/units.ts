@@ -102,3 +102,50 @@ export function formatLength(mm: number, unit: LengthUnit, opts: FormatOptions =
   }
   return `${trimmed(mm, opts.digits ?? 2)} mm`;
 }
+
+/** A length inside a sentence, in millimetres; see `lengthText`. */
+export interface LengthMark {
+  readonly lengthMm: number;
+}
+export const len = (mm: number): LengthMark => ({ lengthMm: mm });
+
+/** A sentence with lengths in it: as written in mm, and as a template a screen can fill in inches. */
+export interface LengthText {
+  message: string;
+  /** The sentence with `{0}`, `{1}`, … where the lengths go. */
+  template: string;
+  lengthsMm: number[];
+}
+
+const isLengthMark = (v: unknown): v is LengthMark => typeof v === 'object' && v !== null && typeof (v as LengthMark).lengthMm === 'number';
+
+/**
+ * `lengthText\`The ${len(4)} skin is too thick\`` → message "The 4 mm skin is too thick", plus a
+ * template so that the same sentence can be shown as "The 0.157" skin is too thick".
+ */
+export function lengthText(strings: TemplateStringsArray, ...values: unknown[]): LengthText {
+  const braces = (x: string) => x.replace(/[{}]/g, (c) => c + c);
+  let message = strings[0];
+  let template = braces(strings[0]);
+  const lengthsMm: number[] = [];
+  values.forEach((v, i) => {
+    if (isLengthMark(v)) {
+      message += formatLength(v.lengthMm, 'mm');
+      template += `{${lengthsMm.length}}`;
+      lengthsMm.push(v.lengthMm);
+    } else {
+      message += String(v);
+      template += braces(String(v));
+    }
+    message += strings[i + 1];
+    template += braces(strings[i + 1]);
+  });
+  return { message, template, lengthsMm };
+}
+
+/** A sentence from `lengthText` in the reader's units; a plain message as it is. */
+export function textInUnits(t: { message: string; template?: string; lengthsMm?: number[] }, unit: LengthUnit): string {
+  if (unit === 'mm' || t.template === undefined || !t.lengthsMm) return t.message;
+  const lengths = t.lengthsMm;
+  return t.template.replace(/\{\{|\}\}|\{(\d+)\}/g, (m, i: string | undefined) => (i === undefined ? m[0] : formatLength(lengths[Number(i)] ?? NaN, unit)));
+}

@@ -5,6 +5,7 @@ import type { FlagSeverity } from '../forms/ParamForm';
 import type { DisplayUnits } from '../forms/useDisplayUnits';
 import { colors, fonts, radius, space, theme } from '../ui';
 import { formatReportValue } from './formatValue';
+import { textInUnits } from '../../shared/units';
 
 const SEVERITY_ORDER: Warning['severity'][] = ['danger', 'caution', 'info'];
 // The word leads each warning so it reads without colour.
@@ -63,7 +64,7 @@ export function FitReport({ values, warnings, units, fieldLabels, title = 'Fit r
             return (
               <View key={w.code} style={[styles.warning, { borderLeftColor: tone.line, backgroundColor: tone.soft }]} testID={`warning-${w.code}`}>
                 <Text style={[styles.severity, { color: tone.ink }]}>{SEVERITY_WORD[w.severity]}</Text>
-                <Text style={theme.body}>{w.message}</Text>
+                <Text style={theme.body}>{textInUnits(w, units)}</Text>
                 {concerns.length ? <Text style={theme.muted}>Concerns: {concerns.join(' · ')}</Text> : null}
               </View>
             );

@@ -17,6 +17,7 @@ import { mirrorForUnderside } from '../geometry/paths';
 import { summarizeModel } from '../geometry/summary';
 import { isOutsideLinearRange, movementCoefficient, type Cut } from '../wood/movement';
 import { SPECIES_CHOICES } from '../wood/species';
+import { len, lengthText } from '../units';
 import { onLayer, rect, roundRect, rv, warn } from './report';
 import type { FieldMessage, GeneratorDef, ReportValue, Warning } from './types';
 
@@ -185,41 +186,40 @@ function check(p: ParamValues): FieldMessage[] {
 /** The warnings for a layout, each exactly when its condition holds (tests rely on that). */
 export function chargerWarnings(p: ParamValues, k: ChargerLayout): Warning[] {
   const w: Warning[] = [];
-  const f = (x: number) => +x.toFixed(2);
   if (k.skin > k.skinMax + 1e-9) {
     w.push(warn('skin_too_thick', 'caution', k.ratedRange
-      ? `The ${f(k.skin)} mm skin is thicker than the charger’s rated ${f(k.skinMax)} mm: it may not charge.`
-      : `The ${f(k.skin)} mm skin is over ${DEFAULT_MAX_SKIN} mm: without a range from the charger maker, charging through more than about 3 mm of wood is unreliable.`,
+      ? lengthText`The ${len(k.skin)} skin is thicker than the charger’s rated ${len(k.skinMax)}: it may not charge.`
+      : lengthText`The ${len(k.skin)} skin is over ${len(DEFAULT_MAX_SKIN)}: without a range from the charger maker, charging through more than about ${len(DEFAULT_MAX_SKIN)} of wood is unreliable.`,
       k.ratedRange ? ['skinThickness', 'ratedMax'] : ['skinThickness', 'ratedRange']));
   }
   if (k.ratedRange && k.skin < k.skinMin - 1e-9) {
-    w.push(warn('skin_too_thin', 'caution', `The ${f(k.skin)} mm skin is thinner than the charger’s rated minimum of ${f(k.skinMin)} mm.`, ['skinThickness', 'ratedMin']));
+    w.push(warn('skin_too_thin', 'caution', lengthText`The ${len(k.skin)} skin is thinner than the charger’s rated minimum of ${len(k.skinMin)}.`, ['skinThickness', 'ratedMin']));
   }
   if (k.style === 'radius' && num(p, 'pocketCornerRadius') < k.bitR - 1e-9) {
-    w.push(warn('pocket_corner_below_bit', 'caution', `A ${f(2 * k.bitR)} mm bit cannot cut a ${f(num(p, 'pocketCornerRadius'))} mm corner radius: use at least ${f(k.bitR)} mm, a smaller bit, or square corners with reliefs.`, ['pocketCornerRadius', 'bitDiameter', 'cornerStyle']));
+    w.push(warn('pocket_corner_below_bit', 'caution', lengthText`A ${len(2 * k.bitR)} bit cannot cut a ${len(num(p, 'pocketCornerRadius'))} corner radius: use at least ${len(k.bitR)}, a smaller bit, or square corners with reliefs.`, ['pocketCornerRadius', 'bitDiameter', 'cornerStyle']));
   }
   if (num(p, 'openingCornerRadius') < k.bitR - 1e-9) {
-    w.push(warn('opening_corner_below_bit', 'caution', `The opening’s ${f(num(p, 'openingCornerRadius'))} mm corner radius is tighter than a ${f(2 * k.bitR)} mm bit can rout.`, ['openingCornerRadius', 'bitDiameter']));
+    w.push(warn('opening_corner_below_bit', 'caution', lengthText`The opening’s ${len(num(p, 'openingCornerRadius'))} corner radius is tighter than a ${len(2 * k.bitR)} bit can rout.`, ['openingCornerRadius', 'bitDiameter']));
   }
   const minWall = Math.min(k.pocketWall, k.recessWall);
   if (minWall < MIN_WALL - 1e-9) {
     const fields = k.pocketWall <= k.recessWall ? ['openingWidth', 'openingLength', ...DEVICE_FIELDS, ...(k.notch ? ['notchDiameter'] : [])] : ['openingWidth', 'openingLength', k.round ? 'padDiameter' : 'padWidth', ...(k.round ? [] : ['padLength']), 'padClearance'];
-    w.push(warn('thin_wall', 'caution', `The wall between the ${k.pocketWall <= k.recessWall ? 'pocket' : 'recess'} and the plate edge is only ${f(minWall)} mm; keep at least ${MIN_WALL} mm.`, fields));
+    w.push(warn('thin_wall', 'caution', lengthText`The wall between the ${k.pocketWall <= k.recessWall ? 'pocket' : 'recess'} and the plate edge is only ${len(minWall)}; keep at least ${len(MIN_WALL)}.`, fields));
   }
   if (k.floorOverChannel < MIN_FLOOR - 1e-9) {
     w.push(warn('channel_into_pocket', 'danger', k.floorOverChannel <= 0
-      ? `The ${f(k.cd)} mm channel cuts into the ${f(k.P)} mm pocket in a ${f(k.T)} mm plate.`
-      : `Only ${f(k.floorOverChannel)} mm of wood would remain between the channel and the pocket floor.`,
+      ? lengthText`The ${len(k.cd)} channel cuts into the ${len(k.P)} pocket in a ${len(k.T)} plate.`
+      : lengthText`Only ${len(k.floorOverChannel)} of wood would remain between the channel and the pocket floor.`,
       ['channelDepth', 'pocketDepth', 'plateThickness']));
   }
   if (k.R < num(p, 'padThickness') - 1e-9) {
-    w.push(warn('pad_proud', 'caution', `The ${f(k.R)} mm recess is shallower than the ${f(num(p, 'padThickness'))} mm pad: it will stand ${f(num(p, 'padThickness') - k.R)} mm proud of the underside.`, ['padThickness', 'skinThickness', 'pocketDepth', 'plateThickness']));
+    w.push(warn('pad_proud', 'caution', lengthText`The ${len(k.R)} recess is shallower than the ${len(num(p, 'padThickness'))} pad: it will stand ${len(num(p, 'padThickness') - k.R)} proud of the underside.`, ['padThickness', 'skinThickness', 'pocketDepth', 'plateThickness']));
   }
   if (k.P > num(p, 'deviceThickness') + num(p, 'caseAllowance') + 1e-9 && !k.notch) {
-    w.push(warn('device_below_surface', 'info', `The device (${f(num(p, 'deviceThickness') + num(p, 'caseAllowance'))} mm with its case) sits below the surface of the ${f(k.P)} mm pocket: add a finger notch to lift it out.`, ['pocketDepth', 'fingerNotch']));
+    w.push(warn('device_below_surface', 'info', lengthText`The device (${len(num(p, 'deviceThickness') + num(p, 'caseAllowance'))} with its case) sits below the surface of the ${len(k.P)} pocket: add a finger notch to lift it out.`, ['pocketDepth', 'fingerNotch']));
   }
   if (k.movementPerSide > k.c + 1e-9) {
-    w.push(warn('movement_exceeds_clearance', 'caution', `${k.cut === 'plywood' ? 'The plywood' : 'The solid stock'} can grow ${f(k.movementPerSide)} mm per side across the grain, more than the ${f(k.c)} mm clearance: it may bind in the opening.`, ['fitClearance', 'stock', 'cut', 'mcMin', 'mcMax']));
+    w.push(warn('movement_exceeds_clearance', 'caution', lengthText`${k.cut === 'plywood' ? 'The plywood' : 'The solid stock'} can grow ${len(k.movementPerSide)} per side across the grain, more than the ${len(k.c)} clearance: it may bind in the opening.`, ['fitClearance', 'stock', 'cut', 'mcMin', 'mcMax']));
   }
   if (k.cut !== 'plywood' && (isOutsideLinearRange(num(p, 'mcMin')) || isOutsideLinearRange(num(p, 'mcMax')))) {
     w.push(warn('mc_outside_linear_range', 'info', 'The Wood Handbook’s movement estimate is linear only between 6 % and 14 % moisture content; outside it, treat the figure as rough.', ['mcMin', 'mcMax']));

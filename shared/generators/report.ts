@@ -2,6 +2,7 @@
 import makerjs from 'makerjs';
 import type { ParamUnit } from '../params';
 import type { LayerName } from '../schemas/geometry';
+import type { LengthText } from '../units';
 import type { ReportValue, Warning } from './types';
 
 /** Values in reports are rounded for people: 3 decimals for lengths, 2 for angles. */
@@ -15,8 +16,9 @@ export function rv(key: string, label: string, value: number | string, unit?: Pa
   return unit ? { key, label, value: v, unit } : { key, label, value: v };
 }
 
-export function warn(code: string, severity: Warning['severity'], message: string, fields: string[]): Warning {
-  return { code, severity, message, fields };
+/** `message` is plain text, or a `lengthText` sentence whose lengths follow the reader's units. */
+export function warn(code: string, severity: Warning['severity'], message: string | LengthText, fields: string[]): Warning {
+  return typeof message === 'string' ? { code, severity, message, fields } : { code, severity, ...message, fields };
 }
 
 /** A model on one layer, optionally moved to `origin`. */

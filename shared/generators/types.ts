@@ -13,7 +13,11 @@ export interface Warning {
   /** Stable code, e.g. "skin_too_thick": tests and the client key on it. */
   code: string;
   severity: 'info' | 'caution' | 'danger';
+  /** In millimetres. */
   message: string;
+  /** When the message holds lengths: the same sentence to show in inches (`textInUnits`). */
+  template?: string;
+  lengthsMm?: number[];
   /** The parameters to change to clear it. */
   fields: string[];
 }

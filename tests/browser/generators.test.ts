@@ -105,6 +105,8 @@ describe('generator and calculator screens', () => {
         await page.getByText(/Device width must be at most 11\.811" \(300 mm\)/).waitFor();
         await deviceWidth.fill('3-1/4');
         await expect.poll(() => textOf(page, 'value-pocketWidth')).toContain(expected);
+        // The warning's lengths follow the units too: 4 mm = 0.157", 3.5 mm = 0.138" (÷ 25.4, three places).
+        expect(await textOf(page, 'warning-skin_too_thick')).toContain('The 0.157" skin is thicker than the charger’s rated 0.138"');
         await screenshot(page, `charger-insert-inches-${label}`);
 
         // The unit choice is remembered on this browser.

@@ -5,6 +5,7 @@ import { GENERATORS, getGenerator, runGenerator, type GeneratorResult } from '..
 import { CHARGER_INSERT_PARAMS } from '../../shared/generators/chargerInsert';
 import { defaultParams, paramsSchema, type ParamValues } from '../../shared/params';
 import { LAYERS } from '../../shared/schemas/geometry';
+import { textInUnits } from '../../shared/units';
 import { contoursByFindChains } from '../../shared/geometry/summary';
 
 const gen = (id: string, params: Record<string, unknown> = {}): { params: ParamValues; result: GeneratorResult } => {
@@ -182,6 +183,13 @@ describe('charger insert', () => {
     expect(codes(gen('charger-insert', { skinThickness: 3.5 }).result)).toContain('skin_too_thick');
     expect(codes(gen('charger-insert', { skinThickness: 3.5, ratedRange: true, ratedMax: 5 }).result)).not.toContain('skin_too_thick');
     expect(codes(gen('charger-insert', { skinThickness: 6, ratedRange: true, ratedMax: 5 }).result)).toContain('skin_too_thick');
+  });
+
+  it('states a warning\'s lengths in inches when inches are chosen (1 in = 25.4 mm, 16 CFR 500.19)', () => {
+    const w = gen('charger-insert', { skinThickness: 6, ratedRange: true, ratedMax: 5 }).result.report.warnings.find((x) => x.code === 'skin_too_thick')!;
+    expect(w.message).toBe('The 6 mm skin is thicker than the charger’s rated 5 mm: it may not charge.');
+    // 6 / 25.4 = 0.23622… → 0.236; 5 / 25.4 = 0.19685… → 0.197.
+    expect(textInUnits(w, 'in')).toBe('The 0.236" skin is thicker than the charger’s rated 0.197": it may not charge.');
   });
 
   it('warns on corner radii tighter than the bit (common practice: a bit cannot cut inside its own radius)', () => {

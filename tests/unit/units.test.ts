@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatLength, fromMm, inchFraction, MM_PER_INCH, parseLength, toMm } from '../../shared/units';
+import { formatLength, fromMm, inchFraction, len, lengthText, MM_PER_INCH, parseLength, textInUnits, toMm } from '../../shared/units';
 
 describe('units (16 CFR 500.19: 1 in = 25.4 mm exactly)', () => {
   it('defines the inch as exactly 25.4 mm (16 CFR 500.19; 1959 international yard and pound)', () => {
@@ -63,5 +63,15 @@ describe('units (16 CFR 500.19: 1 in = 25.4 mm exactly)', () => {
       expect(r.ok).toBe(true);
       if (r.ok) expect(r.mm).toBeCloseTo(mm, 9);
     }
+  });
+
+  it('writes lengths inside a sentence in the reader\'s units (1 in = 25.4 mm; 6.35 mm = 1/4 in exactly)', () => {
+    const t = lengthText`A ${len(6.35)} bit cannot cut a ${len(2)} corner {radius}; ${'ask'} first.`;
+    expect(t.message).toBe('A 6.35 mm bit cannot cut a 2 mm corner {radius}; ask first.');
+    expect(t.lengthsMm).toEqual([6.35, 2]);
+    expect(textInUnits(t, 'mm')).toBe(t.message);
+    // 6.35 / 25.4 = 0.25 exactly; 2 / 25.4 = 0.07874… → 0.079 (three places, as every inch figure on screen).
+    expect(textInUnits(t, 'in')).toBe('A 0.25" bit cannot cut a 0.079" corner {radius}; ask first.');
+    expect(textInUnits({ message: 'No lengths here.' }, 'in')).toBe('No lengths here.');
   });
 });
