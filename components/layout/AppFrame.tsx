@@ -28,14 +28,14 @@ export function AppFrame({ children, title }: { children: ReactNode; title?: str
             <Text style={styles.brandText}>Jigwright</Text>
           </Pressable>
         </Link>
-        {/* On phones the entries scroll sideways in one row instead of wrapping over three. */}
-        <ScrollView horizontal={!isWide} showsHorizontalScrollIndicator={false} contentContainerStyle={[styles.nav, !isWide && styles.navPhone]}>
+        {/* On phones the entries wrap onto a second row, closer together: every one stays in sight. */}
+        <View style={[styles.nav, !isWide && styles.navPhone]} role="navigation">
           {navItems.map((n) => (
             <Link key={n.href} href={n.href as never} style={[styles.navLink, isActive(pathname, n.href) && styles.navActive]}>
               {n.label}
             </Link>
           ))}
-        </ScrollView>
+        </View>
         <ShopSwitcher />
       </View>
       <ScrollView contentContainerStyle={theme.content}>
@@ -62,7 +62,7 @@ const styles = StyleSheet.create({
   mark: { width: 18, height: 18, borderRadius: 3, borderWidth: 3, borderColor: colors.copper, transform: [{ rotate: '45deg' }] },
   brandText: { fontFamily: fonts.bold, fontSize: 20, color: colors.paper, letterSpacing: 0.5 },
   nav: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg },
-  navPhone: { flexWrap: 'nowrap', paddingRight: space.lg },
+  navPhone: { columnGap: space.md, rowGap: 0 },
   navLink: { fontFamily: fonts.medium, fontSize: 15, color: colors.pineSoft, paddingVertical: space.xs },
   navActive: { color: colors.paper, textDecorationLine: 'underline' },
 });
