@@ -1,7 +1,7 @@
 import { defineConfig } from 'vitest/config';
 
-// The one-minute soak runs by itself, after the other suites, so its memory reading is not
-// shaped by test workers competing for the same two cores.
+// The one-minute soak (`npm test -- soak`) runs by itself, so its memory reading is not shaped
+// by test workers competing for the same two cores.
 export default defineConfig({
   resolve: { alias: { '@': import.meta.dirname } },
   test: {

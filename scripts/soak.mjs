@@ -6,14 +6,14 @@
 // request errors or times out, at least 75 % of the target rate was answered, and the server's
 // resident memory (VmRSS, /proc/<pid>/status) grows by at most 10 % from the end of the warm-up
 // to the end of the run (taken from a line fitted through every sample, see below).
-// Also imported by tests/soak/soak.test.ts for the one-minute version inside `npm test`.
+// Also imported by tests/soak/soak.test.ts for the one-minute version (`npm test -- soak`).
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import autocannon from 'autocannon';
-import { freePort, postgresBinDir, repoRoot, startFake, startPostgres, stopChild, waitForPort } from './lib/services.mjs';
+import { freePort, repoRoot, startFake, startPostgres, stopChild, waitForPort } from './lib/services.mjs';
 
 const MAX_GROWTH = 0.1;
 /** The share of the target rate that must be answered (a saturated machine answers fewer, later). */
@@ -21,15 +21,6 @@ const MIN_THROUGHPUT = 0.75;
 
 function tsxProcess(script, env, stdio = ['ignore', 'ignore', 'pipe'], args = []) {
   return spawn(process.execPath, ['--import', 'tsx', script, ...args], { cwd: repoRoot, env: { ...process.env, ...env }, stdio });
-}
-
-/** `pg_ctl stop -m fast -w`: returns once PostgreSQL has exited, so its folder can be removed. */
-async function pgCtlStop(pgdata) {
-  const pgCtl = path.join(postgresBinDir(), 'pg_ctl');
-  const args = ['-D', pgdata, '-m', 'fast', '-w', '-t', '30', 'stop'];
-  const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
-  const child = isRoot ? spawn('runuser', ['-u', 'postgres', '--', pgCtl, ...args], { cwd: '/', stdio: 'ignore' }) : spawn(pgCtl, args, { stdio: 'ignore' });
-  await new Promise((r) => child.once('exit', r));
 }
 
 function rssKb(pid) {
@@ -88,10 +79,7 @@ export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(120
   try {
     const pgPort = await freePort();
     const pg = await startPostgres({ dataDir: path.join(root, 'pg'), port: pgPort, fast: true });
-    stops.push(async () => {
-      await pgCtlStop(path.join(root, 'pg', 'pgdata'));
-      await pg.stop();
-    });
+    stops.push(() => pg.stop());
     const s3Port = await freePort();
     const objects = await startFake('objects', { port: s3Port, dir: path.join(root, 'objects'), extraEnv: { FAKE_BUCKET: 'jigwright' } });
     stops.push(() => objects.stop());

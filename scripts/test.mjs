@@ -1,6 +1,6 @@
 // `npm test`: typecheck, unit + API suites (vitest, supertest), then the browser suite against the
-// real server (playwright-core + Debian's Chromium); `npm test -- soak` adds the one-minute soak. Each suite starts its own services in a
-// temporary folder; the demo data under .data/ is never touched. Ends with "N passed, N failed".
+// real server (playwright-core + Debian's Chromium); `npm test -- soak` runs the one-minute soak.
+// Each suite starts its own services in a temporary folder; the demo data under .data/ is never touched. Ends with "N passed, N failed".
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';

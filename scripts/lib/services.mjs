@@ -136,7 +136,9 @@ export async function startPostgres({ dataDir, port, fast = false }) {
   if (fs.existsSync(stalePid)) {
     const pid = postmasterPid(pgdata);
     let alive = false;
-    try { process.kill(pid, 0); alive = true; } catch { /* not running */ }
+    if (pid) {
+      try { process.kill(pid, 0); alive = true; } catch { /* not running */ }
+    }
     if (alive) throw new Error(`PostgreSQL already runs on this data folder (pid ${pid}); stop the other npm start first`);
     fs.rmSync(stalePid);
   }
@@ -158,7 +160,8 @@ export async function startPostgres({ dataDir, port, fast = false }) {
     stop: async () => {
       if (exited) return;
       // As root the child is runuser, which does not pass signals on: send the fast-shutdown
-      // signal to the postmaster itself (its pid is the first line of postmaster.pid).
+      // signal to the postmaster itself (its pid is the first line of postmaster.pid), then wait
+      // for the child, which exits once PostgreSQL has (so the folder can be reused or removed).
       const pid = postmasterPid(pgdata);
       if (pid) {
         try { process.kill(pid, 'SIGINT'); } catch { /* already gone */ }

@@ -15,7 +15,7 @@ import { createApp } from '../../server/app';
 import { loadConfig } from '../../server/config';
 import type { Deps } from '../../server/deps';
 import { createMailer } from '../../server/mail/mailer';
-import { freePort, postgresBinDir, repoRoot, startFake, startPostgres, stopChild, waitForPort } from '../../scripts/lib/services.mjs';
+import { freePort, repoRoot, startFake, startPostgres, stopChild, waitForPort } from '../../scripts/lib/services.mjs';
 import { databaseUrl } from './services';
 import type { TestContext } from './context';
 import { Mailbox } from './mailbox';
@@ -37,20 +37,6 @@ export interface PrivatePostgres {
   destroy(): Promise<void>;
 }
 
-/**
- * Stops a cluster with `pg_ctl stop -m fast -w`: the server ends every session and is gone when
- * this resolves. (Signalling the `runuser` wrapper that services.mjs starts it under returns before
- * PostgreSQL has exited, so a restart on the same folder would find it still running.)
- */
-async function pgCtlStop(pgdata: string): Promise<void> {
-  const pgCtl = path.join(postgresBinDir()!, 'pg_ctl');
-  const args = ['-D', pgdata, '-m', 'fast', '-w', '-t', '30', 'stop'];
-  const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
-  const child = isRoot ? spawn('runuser', ['-u', 'postgres', '--', pgCtl, ...args], { cwd: '/', stdio: 'ignore' }) : spawn(pgCtl, args, { stdio: 'ignore' });
-  const code = await new Promise<number | null>((r) => child.once('exit', r));
-  if (code !== 0) throw new Error(`pg_ctl stop exited with ${code}`);
-}
-
 export async function privatePostgres(label = 'pg'): Promise<PrivatePostgres> {
   const root = tempRoot(label);
   const dataDir = path.join(root, 'pg');
@@ -60,8 +46,7 @@ export async function privatePostgres(label = 'pg'): Promise<PrivatePostgres> {
   const stop = async () => {
     if (!running) return;
     running = false;
-    await pgCtlStop(path.join(dataDir, 'pgdata'));
-    await server.stop(); // the wrapper process, if it is still there
+    await server.stop(); // fast shutdown; resolves once PostgreSQL has exited
   };
   return {
     adminUrl: server.url,
