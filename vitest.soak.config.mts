@@ -1,6 +1,6 @@
 import { defineConfig } from 'vitest/config';
 
-// The one-minute soak (`npm test -- soak`) runs by itself, so its memory reading is not shaped
+// The one-minute soak runs by itself, last in `npm test` (or alone: `npm test -- soak`), so its memory reading is not shaped
 // by test workers competing for the same two cores.
 export default defineConfig({
   resolve: { alias: { '@': import.meta.dirname } },

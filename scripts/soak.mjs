@@ -1,11 +1,13 @@
 // `npm run soak [-- --seconds 600 --rate 200 --warmup 60]`: a bounded soak on loopback. Starts its
 // own PostgreSQL cluster, object-store and mail fakes and the API (`node --import tsx
-// server/main.ts`, one process) in a temporary folder, seeds the invented demo shop, then sends a
+// server/main.ts`, one process, plus the soak's memory probe) in a temporary folder, seeds the invented demo shop, then sends a
 // fixed rate of mixed reads and writes with autocannon to 127.0.0.1 only, for a fixed time, and
 // stops everything. Passes when every answer is 2xx (none is expected to be anything else), no
 // request errors or times out, at least 75 % of the target rate was answered, and the server's
-// resident memory (VmRSS, /proc/<pid>/status) grows by at most 10 % from the end of the warm-up
-// to the end of the run (taken from a line fitted through every sample, see below).
+// resident memory after a full collection (process.memoryUsage().rss, read by
+// scripts/lib/memory-probe.mjs every 3 s) grows by at most 10 % from the end of the warm-up to the
+// end of the run (taken from a line fitted through every reading, see below), and so does the JS
+// heap kept after that collection (heapUsed).
 // Also imported by tests/soak/soak.test.ts for the one-minute version (`npm test -- soak`).
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
@@ -19,8 +21,29 @@ const MAX_GROWTH = 0.1;
 /** The share of the target rate that must be answered (a saturated machine answers fewer, later). */
 const MIN_THROUGHPUT = 0.75;
 
-function tsxProcess(script, env, stdio = ['ignore', 'ignore', 'pipe'], args = []) {
-  return spawn(process.execPath, ['--import', 'tsx', script, ...args], { cwd: repoRoot, env: { ...process.env, ...env }, stdio });
+function tsxProcess(script, env, stdio = ['ignore', 'ignore', 'pipe'], args = [], nodeArgs = []) {
+  return spawn(process.execPath, [...nodeArgs, '--import', 'tsx', script, ...args], { cwd: repoRoot, env: { ...process.env, ...env }, stdio });
+}
+
+/** How often the server is asked for its memory after a full collection (scripts/lib/memory-probe.mjs). */
+const PROBE_EVERY_MS = 3000;
+
+/** Asks the server (started with the memory probe) for process.memoryUsage() after a full GC. */
+function probeMemory(server, id) {
+  return new Promise((resolve, reject) => {
+    const timer = setTimeout(() => {
+      server.off('message', onMessage);
+      reject(new Error('the memory probe did not answer within 10 s'));
+    }, 10_000);
+    function onMessage(m) {
+      if (m?.probe !== 'memory' || m.id !== id) return;
+      clearTimeout(timer);
+      server.off('message', onMessage);
+      resolve(m);
+    }
+    server.on('message', onMessage);
+    server.send({ probe: 'memory', id });
+  });
 }
 
 function rssKb(pid) {
@@ -109,7 +132,8 @@ export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(120
     const prepCode = await new Promise((r) => prep.once('exit', r));
     if (prepCode !== 0) throw new Error(`prepare failed: ${prepErr}`);
 
-    const server = tsxProcess('server/main.ts', env);
+    // The memory probe lives outside product code; it only adds an IPC handler (see the file).
+    const server = tsxProcess('server/main.ts', env, ['ignore', 'ignore', 'pipe', 'ipc'], [], ['--expose-gc', '--import', './scripts/lib/memory-probe.mjs']);
     let serverErr = '';
     server.stderr.on('data', (c) => (serverErr = (serverErr + c).slice(-4000)));
     stops.unshift(() => stopChild(server));
@@ -169,6 +193,7 @@ export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(120
     }
 
     const samples = [];
+    const collected = [];
     const started = Date.now();
     const sampler = setInterval(() => {
       try {
@@ -177,6 +202,21 @@ export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(120
         /* the process is gone: the run fails below */
       }
     }, 1000);
+    let probeId = 0;
+    let probeFailure = null;
+    let probing = false;
+    const prober = setInterval(() => {
+      if (probing) return;
+      probing = true;
+      const t = (Date.now() - started) / 1000;
+      probeMemory(server, ++probeId)
+        .then((m) => {
+          if (!m.gc) probeFailure = 'the server was started without --expose-gc';
+          collected.push({ t, kb: Math.round(m.rss / 1024), heapUsedKb: Math.round(m.heapUsed / 1024), heapTotalKb: Math.round(m.heapTotal / 1024) });
+        })
+        .catch((e) => (probeFailure = e.message))
+        .finally(() => (probing = false));
+    }, PROBE_EVERY_MS);
     const statusCounts = {};
     log(`${seconds} s at ${rate} requests/s (warm-up ${warmup} s) against ${base}, server pid ${server.pid}`);
     const instance = autocannon({ url: base, connections, overallRate: rate, duration: seconds, requests: mix, timeout: 20 });
@@ -193,6 +233,7 @@ export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(120
     });
     const result = await instance;
     clearInterval(sampler);
+    clearInterval(prober);
     const alive = server.exitCode === null && server.signalCode === null;
     // Objects no row refers to, as `npm run sweep -- --dry-run --grace 0` sees them after the run.
     const sweep = tsxProcess('server/cli/sweep.ts', env, ['ignore', 'pipe', 'pipe'], ['--dry-run', '--grace', '0']);
@@ -203,20 +244,23 @@ export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(120
     const orphans = Number(/would remove (\d+) orphan/.exec(sweepOut)?.[1] ?? NaN);
     if (!Number.isFinite(orphans)) log(`the sweep did not report: ${sweepOut.slice(-3000)}`);
 
-    // RSS rises and falls by tens of MiB with each garbage collection, so two single readings say
-    // little. Growth is taken from a least-squares line through the post-warm-up floors (below):
-    // its value at the end against its value at the end of the warm-up. A leak is a rising line.
-    // Each 10 s window's lowest reading is what the process keeps after collecting; spikes (a
-    // large answer being built) and the collector's sawtooth fall away.
-    const floors = [];
-    for (let t = warmup; t < seconds; t += 10) {
-      const w = samples.filter((s) => s.t >= t && s.t < t + 10);
-      if (w.length) floors.push([t + 5, Math.min(...w.map((s) => s.kb))]);
-    }
-    const fit = leastSquares(floors);
+    // RSS rises and falls by tens of MiB with each garbage collection, and V8 grows its heap under
+    // load for minutes before it settles, so single readings say little. Every 3 s the memory probe
+    // runs a full collection in the server and reads RSS straight after it: what the process keeps.
+    // Growth is taken from a least-squares line through those readings after the warm-up: its value
+    // at the end against its value at the end of the warm-up. A leak is a rising line.
+    const kept = collected.filter((c) => c.t >= warmup).map((c) => [c.t, c.kb]);
+    const fit = leastSquares(kept);
     const rssWarmKb = Math.round(fit.at(warmup));
     const rssEndKb = Math.round(fit.at(seconds));
-    const growth = (rssEndKb - rssWarmKb) / rssWarmKb;
+    const growth = kept.length >= 5 && !probeFailure ? (rssEndKb - rssWarmKb) / rssWarmKb : NaN;
+    if (probeFailure) log(`memory probe: ${probeFailure}`);
+    // The same for the JS heap the collector keeps: much less noisy than RSS (no allocator pages),
+    // so a leak of objects shows here long before it moves RSS by 10 %.
+    const heapFit = leastSquares(collected.filter((c) => c.t >= warmup).map((c) => [c.t, c.heapUsedKb]));
+    const heapWarmKb = Math.round(heapFit.at(warmup));
+    const heapEndKb = Math.round(heapFit.at(seconds));
+    const heapGrowth = kept.length >= 5 && !probeFailure ? (heapEndKb - heapWarmKb) / heapWarmKb : NaN;
     const warm = samples.filter((s) => s.t > warmup - 10 && s.t <= warmup).map((s) => s.kb);
     const end = samples.filter((s) => s.t > seconds - 10).map((s) => s.kb);
     const summary = {
@@ -235,15 +279,19 @@ export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(120
       rssMedianEndKb: median(end),
       rssMaxKb: Math.max(...samples.map((x) => x.kb)),
       rssGrowthPct: Math.round(growth * 1000) / 10,
+      probes: kept.length,
+      heapWarmKb,
+      heapEndKb,
+      heapGrowthPct: Math.round(heapGrowth * 1000) / 10,
       alive,
       orphans,
       unexpected,
       ok: false,
     };
-    summary.ok = alive && orphans === 0 && result.non2xx === 0 && result.errors === 0 && result.timeouts === 0 && Number.isFinite(growth) && growth <= MAX_GROWTH && result.requests.total >= rate * seconds * MIN_THROUGHPUT;
+    summary.ok = alive && orphans === 0 && result.non2xx === 0 && result.errors === 0 && result.timeouts === 0 && Number.isFinite(growth) && growth <= MAX_GROWTH && Number.isFinite(heapGrowth) && heapGrowth <= MAX_GROWTH && result.requests.total >= rate * seconds * MIN_THROUGHPUT;
     if (!alive) summary.serverStderr = serverErr;
     log(
-      `${summary.requests} requests (${summary.perSecond}/s), non-2xx ${summary.non2xx}, errors ${summary.errors}, timeouts ${summary.timeouts}, p99 ${summary.latencyP99Ms} ms, orphan objects ${orphans}; RSS floor (fitted line) ${Math.round(rssWarmKb / 1024)} MiB after warm-up → ${Math.round(rssEndKb / 1024)} MiB at the end (${summary.rssGrowthPct} %, limit ${MAX_GROWTH * 100} %; medians of the warm-up's last 10 s and the run's last 10 s ${Math.round(summary.rssMedianWarmKb / 1024)} → ${Math.round(summary.rssMedianEndKb / 1024)} MiB, peak ${Math.round(summary.rssMaxKb / 1024)} MiB): ${summary.ok ? 'passed' : 'FAILED'}`,
+      `${summary.requests} requests (${summary.perSecond}/s), non-2xx ${summary.non2xx}, errors ${summary.errors}, timeouts ${summary.timeouts}, p99 ${summary.latencyP99Ms} ms, orphan objects ${orphans}; RSS after a full GC (line fitted through ${summary.probes} readings) ${Math.round(rssWarmKb / 1024)} MiB after warm-up → ${Math.round(rssEndKb / 1024)} MiB at the end (${summary.rssGrowthPct} %, limit ${MAX_GROWTH * 100} %; JS heap kept ${Math.round(heapWarmKb / 1024)} → ${Math.round(heapEndKb / 1024)} MiB (${summary.heapGrowthPct} %, limit ${MAX_GROWTH * 100} %); without collecting, medians of the warm-up's last 10 s and the run's last 10 s ${Math.round(summary.rssMedianWarmKb / 1024)} → ${Math.round(summary.rssMedianEndKb / 1024)} MiB, peak ${Math.round(summary.rssMaxKb / 1024)} MiB): ${summary.ok ? 'passed' : 'FAILED'}`,
     );
     if (unexpected.length) log(`unexpected answers: ${unexpected.join(' | ')}`);
     return summary;
