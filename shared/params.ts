@@ -79,7 +79,11 @@ export function defaultParams(decls: ParamDecl[]): ParamValues {
   return out;
 }
 
-export type ParseParamsResult = { ok: true; params: ParamValues } | { ok: false; fields: Record<string, string>; message: string };
+/** A field message with lengths in it, so that a form can show it in inches (`textInUnits`). */
+export type FieldText = { message: string; template?: string; lengthsMm?: number[] };
+
+/** `fields` are in millimetres; `fieldTexts`, where given, hold the same messages as templates. */
+export type ParseParamsResult = { ok: true; params: ParamValues } | { ok: false; fields: Record<string, string>; message: string; fieldTexts?: Record<string, FieldText> };
 
 /** One message per field; unknown keys get their own field entry. */
 export function issuesToFields(issues: z.core.$ZodIssue[]): Record<string, string> {
@@ -115,14 +119,19 @@ export function parseParams(decls: ParamDecl[], raw: unknown): ParseParamsResult
  * parseParams, then a declaration's own consistency check (combinations no single range can
  * catch); check messages go on their fields, the first one as the summary.
  */
-export function validateParams(decls: ParamDecl[], raw: unknown, check?: (p: ParamValues) => { field: string; message: string }[]): ParseParamsResult {
+export function validateParams(decls: ParamDecl[], raw: unknown, check?: (p: ParamValues) => ({ field: string } & FieldText)[]): ParseParamsResult {
   const parsed = parseParams(decls, raw);
   if (!parsed.ok) return parsed;
   const problems = check?.(parsed.params) ?? [];
   if (problems.length === 0) return parsed;
   const fields: Record<string, string> = {};
-  for (const f of problems) fields[f.field] ??= f.message;
-  return { ok: false, fields, message: problems[0].message };
+  const fieldTexts: Record<string, FieldText> = {};
+  for (const { field, message, template, lengthsMm } of problems) {
+    if (field in fields) continue;
+    fields[field] = message;
+    if (template !== undefined && lengthsMm) fieldTexts[field] = { message, template, lengthsMm };
+  }
+  return { ok: false, fields, message: problems[0].message, ...(Object.keys(fieldTexts).length ? { fieldTexts } : {}) };
 }
 
 function fmtDefault(d: ParamDecl): string {

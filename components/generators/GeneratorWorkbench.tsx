@@ -4,7 +4,8 @@ import { ActivityIndicator, Pressable, ScrollView, StyleSheet, Text, View, useWi
 import { modelToLayerPaths, previewFrame } from '../../shared/geometry/paths';
 import { runGenerator } from '../../shared/generators';
 import type { GeneratorDef, GeneratorResult } from '../../shared/generators/types';
-import { defaultParams, type ParamValues } from '../../shared/params';
+import { defaultParams, type FieldText, type ParamValues } from '../../shared/params';
+import { textInUnits } from '../../shared/units';
 import { SafetyNotes } from '../SafetyNotes';
 import { ApiError } from '../api/client';
 import { Drawing } from '../drawing/Drawing';
@@ -41,12 +42,12 @@ export interface GeneratorWorkbenchProps {
 
 type Preview =
   | { ok: true; params: ParamValues; result: GeneratorResult }
-  | { ok: false; fields: Record<string, string>; message: string };
+  | { ok: false; fields: Record<string, string>; message: string; fieldTexts?: Record<string, FieldText> };
 
 function preview(id: string, values: Partial<ParamValues>): Preview {
   try {
     const r = runGenerator(id, values);
-    return r.ok ? { ok: true, params: r.params, result: r.result } : { ok: false, fields: r.fields, message: r.message };
+    return r.ok ? { ok: true, params: r.params, result: r.result } : { ok: false, fields: r.fields, message: r.message, fieldTexts: r.fieldTexts };
   } catch (e) {
     // A generator that throws is a bug, but the form must stay usable and say so.
     return { ok: false, fields: {}, message: `These values could not be drawn: ${(e as Error).message}` };
@@ -90,7 +91,9 @@ export function GeneratorWorkbench({ generator, initialParams, onlyFields, onSav
   const flagged = useMemo(() => flaggedFields(shown && current.ok ? shown.result.report.warnings : []), [shown, current]);
   const fieldLabels = useMemo(() => Object.fromEntries(generator.params.map((d) => [d.name, d.label])), [generator]);
   const stale = !formValid || !current.ok;
-  const externalErrors = useMemo(() => ({ ...(current.ok ? {} : current.fields), ...saveState.fields }), [current, saveState.fields]);
+  // Check messages with lengths in them follow the units toggle, as the range messages do.
+  const checkErrors = useMemo(() => (current.ok ? {} : Object.fromEntries(Object.entries(current.fields).map(([k, m]) => [k, textInUnits(current.fieldTexts?.[k] ?? { message: m }, units)]))), [current, units]);
+  const externalErrors = useMemo(() => ({ ...checkErrors, ...saveState.fields }), [checkErrors, saveState.fields]);
 
   const save = async () => {
     if (!onSave || !current.ok || stale) return;

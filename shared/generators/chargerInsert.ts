@@ -158,24 +158,24 @@ export type ChargerLayout = ReturnType<typeof chargerLayout>;
 function check(p: ParamValues): FieldMessage[] {
   const k = chargerLayout(p);
   const out: FieldMessage[] = [];
-  const size = (w: number, h: number) => `${+w.toFixed(2)} × ${+h.toFixed(2)} mm`;
+  const r2 = (x: number) => len(+x.toFixed(2));
   if (num(p, 'openingCornerRadius') > Math.min(num(p, 'openingWidth'), num(p, 'openingLength')) / 2) {
     out.push({ field: 'openingCornerRadius', message: 'Opening corner radius must be at most half the opening width and length' });
   }
   if (k.pocketWall <= 0) {
-    const message = `The device pocket (${size(k.pw, k.pl)} with case and clearance) does not fit inside the ${size(k.W, k.L)} plate`;
-    if (k.pw >= k.W) out.push({ field: 'deviceWidth', message });
-    if (k.pl >= k.L) out.push({ field: 'deviceLength', message });
+    const text = lengthText`The device pocket (${r2(k.pw)} × ${r2(k.pl)} with case and clearance) does not fit inside the ${r2(k.W)} × ${r2(k.L)} plate`;
+    if (k.pw >= k.W) out.push({ field: 'deviceWidth', ...text });
+    if (k.pl >= k.L) out.push({ field: 'deviceLength', ...text });
     if (k.pw < k.W && k.pl < k.L) {
-      if (k.notchWall <= 0) out.push({ field: 'notchDiameter', message: `The finger notch would cut through the plate edge: the side wall is only ${+k.sideWall.toFixed(2)} mm` });
-      else out.push({ field: 'deviceWidth', message });
+      if (k.notchWall <= 0) out.push({ field: 'notchDiameter', ...lengthText`The finger notch would cut through the plate edge: the side wall is only ${r2(k.sideWall)}` });
+      else out.push({ field: 'deviceWidth', ...text });
     }
   }
   if (k.recessWall <= 0) {
-    out.push({ field: k.round ? 'padDiameter' : k.rw >= k.W ? 'padWidth' : 'padLength', message: `The pad recess (${size(k.rw, k.rl)}) does not fit inside the ${size(k.W, k.L)} plate` });
+    out.push({ field: k.round ? 'padDiameter' : k.rw >= k.W ? 'padWidth' : 'padLength', ...lengthText`The pad recess (${r2(k.rw)} × ${r2(k.rl)}) does not fit inside the ${r2(k.W)} × ${r2(k.L)} plate` });
   }
   if (k.P >= k.T) out.push({ field: 'pocketDepth', message: 'Pocket depth must be less than the plate thickness' });
-  else if (k.R <= 0) out.push({ field: 'skinThickness', message: `Pocket depth + skin (${+(k.P + k.skin).toFixed(2)} mm) leaves no room for a recess in a ${+k.T.toFixed(2)} mm plate` });
+  else if (k.R <= 0) out.push({ field: 'skinThickness', ...lengthText`Pocket depth + skin (${r2(k.P + k.skin)}) leaves no room for a recess in a ${r2(k.T)} plate` });
   if (k.cd >= k.T) out.push({ field: 'channelDepth', message: 'Channel depth must be less than the plate thickness' });
   if (k.cw >= Math.min(k.rw, k.rl)) out.push({ field: 'plugWidth', message: 'The cord channel must be narrower than the pad recess' });
   if (num(p, 'mcMin') > num(p, 'mcMax')) out.push({ field: 'mcMax', message: 'Highest moisture content must be at least the lowest' });

@@ -4,7 +4,7 @@ import { halfLap } from './halfLap';
 import { splayedBox } from './splayedBox';
 import { taperJig } from './taperJig';
 import type { GeneratorDef, GeneratorResult } from './types';
-import type { ParamValues } from '../params';
+import type { FieldText, ParamValues } from '../params';
 
 export type { FieldMessage, FitReport, GeneratorDef, GeneratorResult, ReportValue, Warning } from './types';
 
@@ -14,7 +14,8 @@ export function getGenerator(id: string): GeneratorDef | undefined {
   return GENERATORS.find((g) => g.id === id);
 }
 
-export type RunGeneratorResult = { ok: true; params: ParamValues; result: GeneratorResult } | { ok: false; fields: Record<string, string>; message: string };
+/** `fields` are in millimetres; `fieldTexts` hold those with lengths in them as templates (`textInUnits`). */
+export type RunGeneratorResult = { ok: true; params: ParamValues; result: GeneratorResult } | { ok: false; fields: Record<string, string>; message: string; fieldTexts?: Record<string, FieldText> };
 
 /** Validate, check combinations, generate. An unknown id comes back as a field error on `generatorId`. */
 export function runGenerator(id: string, raw: unknown): RunGeneratorResult {

@@ -6,6 +6,7 @@
 import makerjs from 'makerjs';
 import { num, str, type ParamDecl, type ParamValues } from '../params';
 import { summarizeModel } from '../geometry/summary';
+import { len, lengthText } from '../units';
 import { deg, onLayer, polygon, rect, rv, warn } from './report';
 import type { FieldMessage, GeneratorDef, Warning } from './types';
 
@@ -40,7 +41,7 @@ function check(p: ParamValues): FieldMessage[] {
   const out: FieldMessage[] = [];
   const k = layout(p);
   if (k.N >= k.W) out.push({ field: 'narrowEnd', message: 'Narrow end must be narrower than the wide end' });
-  else if (k.sledWidth < k.W * Math.cos(k.angleRad) + CLEAT_ROOM) out.push({ field: 'sledWidth', message: `Sled width must be at least ${Math.ceil(k.W * Math.cos(k.angleRad) + CLEAT_ROOM)} mm to carry the leg and its cleat` });
+  else if (k.sledWidth < k.W * Math.cos(k.angleRad) + CLEAT_ROOM) out.push({ field: 'sledWidth', ...lengthText`Sled width must be at least ${len(Math.ceil(k.W * Math.cos(k.angleRad) + CLEAT_ROOM))} to carry the leg and its cleat` });
   return out;
 }
 

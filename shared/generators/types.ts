@@ -41,7 +41,11 @@ export interface GeneratorResult {
 
 export interface FieldMessage {
   field: string;
+  /** In millimetres. */
   message: string;
+  /** When the message holds lengths: the same sentence to show in inches (`textInUnits`). */
+  template?: string;
+  lengthsMm?: number[];
 }
 
 export interface GeneratorDef {

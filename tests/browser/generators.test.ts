@@ -108,6 +108,12 @@ describe('generator and calculator screens', () => {
         // The warning's lengths follow the units too: 4 mm = 0.157", 3.5 mm = 0.138" (÷ 25.4, three places).
         expect(await textOf(page, 'warning-skin_too_thick')).toContain('The 0.157" skin is thicker than the charger’s rated 0.138"');
         await screenshot(page, `charger-insert-inches-${label}`);
+        // So do the consistency checks: 5/8 in = 15.875 mm of skin + 3 mm pocket = 18.875 mm in an 18 mm
+        // plate → 0.743" and 0.709" (÷ 25.4, three places).
+        await page.getByLabel('Skin over the pad', { exact: true }).fill('5/8');
+        await expect.poll(() => textOf(page, 'field-Skin over the pad')).toContain('Pocket depth + skin (0.743") leaves no room for a recess in a 0.709" plate');
+        await page.getByLabel('Skin over the pad', { exact: true }).fill('0.157');
+        await expect.poll(() => page.getByText('leaves no room for a recess').count()).toBe(0);
 
         // The unit choice is remembered on this browser.
         await page.reload();

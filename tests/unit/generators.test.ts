@@ -102,6 +102,24 @@ describe('generator registry', () => {
     expect(runGenerator('charger-insert', { mcMin: 12, mcMax: 8 })).toMatchObject({ ok: false, fields: { mcMax: expect.any(String) } });
     expect(runGenerator('taper-jig', { wideEnd: 30, narrowEnd: 40 })).toMatchObject({ ok: false, fields: { narrowEnd: expect.any(String) } });
   });
+
+  it('gives consistency messages with lengths as templates, so the form can show them in inches', () => {
+    // 1 in = 25.4 mm exactly (NIST SP 811, appendix B.8). 6 mm = 0.236", 3 + 3 = 6 mm.
+    const r = runGenerator('charger-insert', { plateThickness: 6, pocketDepth: 3, skinThickness: 3 });
+    if (r.ok) throw new Error('expected a field message');
+    expect(r.fields.skinThickness).toBe('Pocket depth + skin (6 mm) leaves no room for a recess in a 6 mm plate');
+    expect(textInUnits(r.fieldTexts!.skinThickness, 'in')).toBe('Pocket depth + skin (0.236") leaves no room for a recess in a 0.236" plate');
+    // Messages without lengths carry no template and read the same in either unit.
+    const mc = runGenerator('charger-insert', { mcMin: 12, mcMax: 8 });
+    if (mc.ok) throw new Error('expected a field message');
+    expect(mc.fieldTexts?.mcMax).toBeUndefined();
+    // The taper sled must carry the wide end and a cleat: the figure is rounded up in mm, then shown in inches.
+    const t = runGenerator('taper-jig', { wideEnd: 100, narrowEnd: 40, sledWidth: 60 });
+    if (t.ok) throw new Error('expected a field message');
+    const mm = Number(/at least (\d+) mm/.exec(t.fields.sledWidth)?.[1]);
+    expect(mm).toBeGreaterThan(100);
+    expect(textInUnits(t.fieldTexts!.sledWidth, 'in')).toBe(`Sled width must be at least ${+(mm / 25.4).toFixed(3)}" to carry the leg and its cleat`);
+  });
 });
 
 describe('charger insert', () => {
