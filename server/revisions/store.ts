@@ -46,16 +46,14 @@ export async function saveRevision(
   const revisionId = randomUUID();
   const files: RenderedFile[] = renderRevisionFiles(draft.model, draft.title);
   if (draft.original) files.push({ role: 'original', ...draft.original });
-  const written: string[] = [];
-  try {
-    for (const f of files) {
-      const key = `revisions/${revisionId}/${f.role}.${f.ext}`;
-      await deps.objects.put(key, f.body, f.contentType);
-      written.push(key);
-    }
-  } catch (e) {
+  const written = files.map((f) => `revisions/${revisionId}/${f.role}.${f.ext}`);
+  // The files go up side by side. Every write is waited for, failed or not, before anything is
+  // removed: a write still in flight could otherwise land after the clean-up and stay behind.
+  const puts = await Promise.allSettled(files.map((f, i) => deps.objects.put(written[i], f.body, f.contentType)));
+  const failed = puts.find((p): p is PromiseRejectedResult => p.status === 'rejected');
+  if (failed) {
     await removeQuietly(deps, written);
-    deps.log.error({ err: e }, 'object store write failed');
+    deps.log.error({ err: failed.reason }, 'object store write failed');
     throw new HttpError(503, 'storage_unavailable', 'The file store is not answering; nothing was saved. Try again in a moment.');
   }
   try {

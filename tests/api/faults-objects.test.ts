@@ -73,10 +73,22 @@ describe('object store faults', () => {
     const objects = ctx.deps.objects;
     const realPut = objects.put.bind(objects);
     const written: string[] = [];
+    // The save may send its writes one after another or side by side: either way the first two land,
+    // then the store dies, and only then do the later writes reach it.
+    let killed!: () => void;
+    const storeDead = new Promise<void>((resolve) => (killed = resolve));
+    let calls = 0;
     objects.put = async (key, body, type) => {
+      if (++calls > 2) {
+        await storeDead;
+        return realPut(key, body, type);
+      }
       await realPut(key, body, type);
       written.push(key);
-      if (written.length === 2) await store.kill(); // mid-save: the next write meets a dead store
+      if (written.length === 2) {
+        await store.kill();
+        killed();
+      }
     };
     let r;
     try {
