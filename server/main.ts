@@ -3,6 +3,7 @@ import { createDb } from '../db/connect';
 import { ObjectStore } from '../files/objectStore';
 import { createApp } from './app';
 import { loadConfig } from './config';
+import { startHousekeeping } from './housekeeping';
 import { createMailer } from './mail/mailer';
 
 const config = loadConfig();
@@ -13,6 +14,7 @@ const mailer = createMailer(config.smtpUrl, config.mailFrom);
 await objects.ensureBucket();
 
 const { app } = createApp({ config, db, objects, mailer, log });
+const housekeeping = startHousekeeping({ db, objects, log });
 const server = app.listen(config.port, config.host, () => {
   log.info(`Jigwright listening on http://${config.host}:${config.port}`);
   process.send?.({ ready: true, port: config.port });
@@ -20,6 +22,7 @@ const server = app.listen(config.port, config.host, () => {
 
 async function shutdown() {
   server.close();
+  await housekeeping.stop();
   mailer.close();
   await db.destroy().catch(() => undefined);
   process.exit(0);

@@ -1,0 +1,59 @@
+// Work the running server does by itself now and then: spent sign-in rows go (server/auth/cleanup),
+// and stored objects no revision refers to are swept after their grace time, as `npm run sweep`
+// does by hand (server/revisions/sweep). A failure is logged and tried again next time; it never
+// stops the server. The timer does not keep the process alive.
+import type { Deps } from './deps';
+import { removeSpentAuthRows } from './auth/cleanup';
+import { sweepOrphans } from './revisions/sweep';
+
+export interface HousekeepingOptions {
+  /** First round after start-up (not at once: start-up already has enough to do). */
+  firstAfterMs?: number;
+  everyMs?: number;
+  /**
+   * Objects younger than this are left alone: a save or an archive import may still be writing its
+   * rows. A day, not the hand-run sweep's 10 minutes: a large archive import writes every file
+   * before its one transaction, and it must never lose one to a sweep that ran in between.
+   */
+  graceSeconds?: number;
+}
+
+export function startHousekeeping(deps: Pick<Deps, 'db' | 'objects' | 'log'>, { firstAfterMs = 60_000, everyMs = 3_600_000, graceSeconds = 86_400 }: HousekeepingOptions = {}) {
+  let timer: NodeJS.Timeout | undefined;
+  let running: Promise<void> | undefined;
+  let stopped = false;
+  let rounds = 0;
+  const round = async () => {
+    rounds++;
+    try {
+      const spent = await removeSpentAuthRows(deps.db);
+      const swept = await sweepOrphans(deps, { graceSeconds });
+      if (spent.sessions || spent.resets || swept.removed.length) deps.log.info({ ...spent, orphanObjects: swept.removed.length }, 'housekeeping');
+    } catch (err) {
+      deps.log.warn({ err }, 'housekeeping failed; it runs again later');
+    }
+  };
+  const schedule = (ms: number) => {
+    if (stopped) return;
+    timer = setTimeout(() => {
+      running = round().finally(() => {
+        running = undefined;
+        schedule(everyMs);
+      });
+    }, ms);
+    timer.unref();
+  };
+  schedule(firstAfterMs);
+  return {
+    /** Rounds started so far. */
+    get rounds() {
+      return rounds;
+    },
+    /** Stops the timer and waits for a round in progress. */
+    async stop() {
+      stopped = true;
+      clearTimeout(timer);
+      await running;
+    },
+  };
+}
