@@ -5,11 +5,12 @@ import { AppFrame } from '@/components/layout/AppFrame';
 import { YourShopCard } from '@/components/shop/YourShopCard';
 import { colors, radius, space, theme } from '@/components/ui';
 
-function StatusPill({ label, up }: { label: string; up: boolean | undefined }) {
+function StatusPill({ label, up, slow }: { label: string; up: boolean | undefined; slow?: boolean }) {
+  const word = up === undefined ? '…' : up ? 'up' : slow ? 'slow to answer' : 'down';
   return (
     <View style={[styles.pill, { backgroundColor: up ? colors.pineSoft : up === false ? colors.dangerSoft : colors.sunk }]}>
       <Text style={theme.label}>
-        {label}: {up === undefined ? '…' : up ? 'up' : 'down'}
+        {label}: {word}
       </Text>
     </View>
   );
@@ -32,9 +33,9 @@ export default function Home() {
           <Text style={[theme.body, { color: colors.danger }]}>Cannot reach the server: {health.error.message}</Text>
         ) : (
           <View style={[theme.row, { flexWrap: 'wrap' }]}>
-            <StatusPill label="Database" up={health.data?.db} />
-            <StatusPill label="File store" up={health.data?.objects} />
-            <StatusPill label="Mail" up={health.data?.mail} />
+            <StatusPill label="Database" up={health.data?.db} slow={health.data?.slow?.includes('db')} />
+            <StatusPill label="File store" up={health.data?.objects} slow={health.data?.slow?.includes('objects')} />
+            <StatusPill label="Mail" up={health.data?.mail} slow={health.data?.slow?.includes('mail')} />
           </View>
         )}
       </View>

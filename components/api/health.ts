@@ -6,7 +6,11 @@ export interface Health {
   db: boolean;
   objects: boolean;
   mail: boolean;
+  /** Refused or failed. */
   down?: string[];
+  /** No answer within `limitMs`: overloaded or hung. */
+  slow?: string[];
+  limitMs?: number;
 }
 
 export const healthKeys = { all: ['health'] as const };

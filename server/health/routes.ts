@@ -1,26 +1,53 @@
 import { sql } from 'kysely';
+import type { Deps } from '../deps';
 import type { ApiRouter } from '../http/router';
 
-async function within<T>(ms: number, p: Promise<T>, fallback: T): Promise<T> {
+/** How long each service may take to answer. Under heavy load the store can take seconds; 2 s read as "down". */
+export const HEALTH_LIMIT_MS = 5000;
+
+type Reading = { state: 'up' | 'down' | 'slow'; ms: number };
+
+/** Up, refused ("down"), or no answer within the limit ("slow": it may be overloaded or hung). */
+async function reading(limitMs: number, check: () => Promise<boolean>): Promise<Reading> {
+  const started = performance.now();
   let timer: NodeJS.Timeout | undefined;
-  const timeout = new Promise<T>((resolve) => { timer = setTimeout(() => resolve(fallback), ms); });
+  const late = new Promise<'slow'>((resolve) => { timer = setTimeout(() => resolve('slow'), limitMs); });
   try {
-    return await Promise.race([p.catch(() => fallback), timeout]);
+    const answered = check().then(
+      (up): Reading['state'] => (up ? 'up' : 'down'),
+      (): Reading['state'] => 'down',
+    );
+    const state = await Promise.race([answered, late]);
+    return { state, ms: Math.round(performance.now() - started) };
   } finally {
     clearTimeout(timer);
   }
 }
 
+export async function checkServices(deps: Pick<Deps, 'db' | 'objects' | 'mailer'>, limitMs = HEALTH_LIMIT_MS) {
+  const [db, objects, mail] = await Promise.all([
+    reading(limitMs, () => sql`select 1`.execute(deps.db).then(() => true)),
+    reading(limitMs, () => deps.objects.check()),
+    reading(limitMs, () => deps.mailer.check()),
+  ]);
+  const all = { db, objects, mail };
+  const named = (state: Reading['state']) => Object.entries(all).filter(([, r]) => r.state === state).map(([name]) => name);
+  const down = named('down');
+  const slow = named('slow');
+  const ok = down.length === 0 && slow.length === 0;
+  return {
+    ok,
+    db: db.state === 'up',
+    objects: objects.state === 'up',
+    mail: mail.state === 'up',
+    ...(down.length ? { down } : {}),
+    ...(slow.length ? { slow, limitMs } : {}),
+  };
+}
+
 export function healthRoutes(api: ApiRouter): void {
   api.route('get', '/health', { kind: 'public' }, async (_req, res) => {
-    const { db, objects, mailer } = api.deps;
-    const [dbUp, objectsUp, mailUp] = await Promise.all([
-      within(2000, sql`select 1`.execute(db).then(() => true), false),
-      within(2000, objects.check(), false),
-      within(2000, mailer.check(), false),
-    ]);
-    const ok = dbUp && objectsUp && mailUp;
-    const down = [!dbUp && 'db', !objectsUp && 'objects', !mailUp && 'mail'].filter(Boolean);
-    res.status(ok ? 200 : 503).json({ ok, db: dbUp, objects: objectsUp, mail: mailUp, ...(ok ? {} : { down }) });
+    const health = await checkServices(api.deps);
+    res.status(health.ok ? 200 : 503).json(health);
   });
 }

@@ -78,3 +78,23 @@ describe('request log', () => {
     }
   });
 });
+
+describe('a service that does not answer in time', () => {
+  it('is named "slow", apart from one that refuses ("down"), and the answer comes at the limit', async () => {
+    const { checkServices } = await import('../../server/health/routes');
+    const ctx = await createTestContext();
+    try {
+      const objects = Object.create(ctx.deps.objects) as typeof ctx.deps.objects;
+      objects.check = () => new Promise((r) => setTimeout(() => r(true), 2000));
+      const mailer = { ...ctx.deps.mailer, check: async () => false };
+      const started = Date.now();
+      const h = await checkServices({ db: ctx.db, objects, mailer }, 200);
+      expect(Date.now() - started).toBeLessThan(1500);
+      expect(h).toEqual({ ok: false, db: true, objects: false, mail: false, down: ['mail'], slow: ['objects'], limitMs: 200 });
+      // Given time, the same slow store is up.
+      expect(await checkServices({ db: ctx.db, objects, mailer: ctx.deps.mailer }, 3000)).toEqual({ ok: true, db: true, objects: true, mail: true });
+    } finally {
+      await ctx.close();
+    }
+  });
+});
