@@ -15,5 +15,11 @@ export function createDb(connectionString: string, opts: { max?: number } = {}):
   pool.on('error', () => {
     /* an idle client lost its server; the pool replaces it on next use */
   });
+  // A client in use (inside a transaction, between two statements) that loses its server emits
+  // 'error' too, and pg-pool listens only to idle ones: unheard, it would end the process. Its
+  // statement fails on its own, and the pool drops a client that is no longer queryable.
+  pool.on('connect', (client) => {
+    client.on('error', () => undefined);
+  });
   return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
 }

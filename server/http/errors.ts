@@ -125,6 +125,7 @@ function isDatabaseDown(err: any): boolean {
     code === '57P01' || // admin_shutdown
     code === '57P02' ||
     code === '57P03' || // cannot_connect_now
-    /Connection terminated|timeout exceeded when trying to connect/i.test(String(err?.message ?? ''))
+    // "…is not queryable": a later statement (a transaction's ROLLBACK) on a client that lost its server.
+    /Connection terminated|timeout exceeded when trying to connect|connection error and is not queryable/i.test(String(err?.message ?? ''))
   );
 }
