@@ -99,6 +99,15 @@ export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(120
   const root = fs.mkdtempSync(path.join(os.tmpdir(), 'jw-soak-'));
   fs.chmodSync(root, 0o755);
   const stops = [];
+  // Stopped by hand (Ctrl-C, kill): stop the server, fakes and cluster too, rather than leave them running.
+  const onSignal = async (signal) => {
+    log(`${signal}: stopping the soak's services`);
+    for (const stop of stops) await stop().catch(() => undefined);
+    fs.rmSync(root, { recursive: true, force: true });
+    process.exit(130);
+  };
+  process.once('SIGINT', onSignal);
+  process.once('SIGTERM', onSignal);
   try {
     const pgPort = await freePort();
     const pg = await startPostgres({ dataDir: path.join(root, 'pg'), port: pgPort, fast: true });
@@ -296,6 +305,8 @@ export async function runSoak({ seconds = 600, rate = 200, warmup = Math.min(120
     if (unexpected.length) log(`unexpected answers: ${unexpected.join(' | ')}`);
     return summary;
   } finally {
+    process.off('SIGINT', onSignal);
+    process.off('SIGTERM', onSignal);
     for (const stop of stops) await stop().catch(() => undefined);
     fs.rmSync(root, { recursive: true, force: true });
   }
