@@ -6,19 +6,10 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import pg from 'pg';
-import pino from 'pino';
-import supertest from 'supertest';
 import { createDb } from '../../db/connect';
 import { migrateToLatest } from '../../db/migrate';
-import { ObjectStore } from '../../files/objectStore';
-import { createApp } from '../../server/app';
-import { loadConfig } from '../../server/config';
-import type { Deps } from '../../server/deps';
-import { createMailer } from '../../server/mail/mailer';
 import { freePort, repoRoot, startFake, startPostgres, stopChild, waitForPort } from '../../scripts/lib/services.mjs';
 import { databaseUrl } from './services';
-import type { TestContext } from './context';
-import { Mailbox } from './mailbox';
 
 function tempRoot(label: string): string {
   const root = fs.mkdtempSync(path.join(os.tmpdir(), `jw-${label}-`));
@@ -118,48 +109,7 @@ export async function migratedDatabase(adminUrl: string, name: string): Promise<
   return url;
 }
 
-/** Environment for the app against given services (mail goes to the shared fake). */
-export function appEnv(v: { databaseUrl: string; s3Port: number; bucket: string }, extra: Record<string, string> = {}): Record<string, string> {
-  return {
-    DATABASE_URL: v.databaseUrl,
-    S3_ENDPOINT: '127.0.0.1',
-    S3_PORT: String(v.s3Port),
-    S3_BUCKET: v.bucket,
-    SMTP_URL: `smtp://127.0.0.1:${process.env.JW_TEST_SMTP_PORT ?? '1'}`,
-    SESSION_SECRET: 'test-secret-that-is-long-enough-0123456789',
-    BCRYPT_COST: '4',
-    LOG_LEVEL: 'silent',
-    RATE_LIMIT_DISABLED: 'true',
-    PUBLIC_URL: 'http://127.0.0.1:1',
-    WEB_DIST: '/nonexistent',
-    ...extra,
-  };
-}
-
-/** The real app in this process against the given services, shaped like createTestContext's. */
-export async function contextOn(env: Record<string, string>): Promise<TestContext> {
-  const config = loadConfig(env);
-  const db = createDb(config.databaseUrl, { max: config.databasePoolMax });
-  const objects = new ObjectStore(config.objects);
-  await objects.ensureBucket();
-  const mailer = createMailer(config.smtpUrl, config.mailFrom);
-  const deps: Deps = { config, db, objects, mailer, log: pino({ level: 'silent' }) };
-  const { app, api } = createApp(deps);
-  return {
-    db,
-    deps,
-    config,
-    app,
-    api,
-    http: supertest(app),
-    mailbox: new Mailbox(process.env.JW_TEST_MAIL_DIR ?? os.tmpdir()),
-    dbName: new URL(config.databaseUrl).pathname.slice(1),
-    async close() {
-      mailer.close();
-      await db.destroy();
-    },
-  };
-}
+export { appEnv, contextOn } from './context';
 
 export interface ServerProcess {
   pid: number;
