@@ -151,6 +151,30 @@ export interface CutLogsTable {
   author_name: ColumnType<string | null, string | null | undefined, string | null>;
   created_at: Timestamp;
 }
+/** One completed shop-archive import (migration 0007). */
+export interface ArchiveImportsTable {
+  id: Generated<string>;
+  shop_id: string;
+  imported_by: string | null;
+  imported_at: Timestamp;
+  source_shop_id: string;
+  source_shop_name: string;
+  exported_at: ColumnType<Date, Date | string, Date | string>;
+  /** sha256 (hex) of the archive's manifest.json bytes. */
+  manifest_sha256: string;
+  /** null for the first import of an archive into the shop; that import's id for a further copy. */
+  copy_of: string | null;
+  designs: number;
+  revisions: number;
+  files: number;
+  cut_logs: number;
+  photos: number;
+  devices_added: number;
+  devices_skipped: number;
+  chargers_added: number;
+  chargers_skipped: number;
+  activity: number;
+}
 
 export interface Database {
   users: UsersTable;
@@ -166,6 +190,7 @@ export interface Database {
   devices: DevicesTable;
   chargers: ChargersTable;
   cut_logs: CutLogsTable;
+  archive_imports: ArchiveImportsTable;
 }
 
 export type User = Selectable<UsersTable>;

@@ -7,6 +7,7 @@ import { useShopContext } from '@/components/shop/CurrentShop';
 import { InviteForm } from '@/components/shop/InviteForm';
 import { MemberRoster } from '@/components/shop/MemberRoster';
 import { PendingInvites } from '@/components/shop/PendingInvites';
+import { ShopArchive } from '@/components/shop/ShopArchive';
 import { RenameShopForm } from '@/components/shop/ShopNameForm';
 import { theme } from '@/components/ui';
 import { ROLE_WITH_ARTICLE, type Me, type ShopSummary } from '@/shared/schemas/auth';
@@ -61,6 +62,9 @@ function ShopMembers({ shop, me }: { shop: ShopSummary; me: Me }) {
           </Section>
           <Section title="Shop name">
             <RenameShopForm shopId={shop.id} name={shop.name} />
+          </Section>
+          <Section title="Shop archive" testID="archive-section">
+            <ShopArchive shopId={shop.id} shopName={shop.name} />
           </Section>
         </>
       ) : null}

@@ -21,6 +21,8 @@ export interface UploadProgress {
 export interface UploadOptions {
   onProgress?: (p: UploadProgress) => void;
   signal?: AbortSignal;
+  /** The form field the file goes in; "file" unless the route names another (archives: "archive"). */
+  fieldName?: string;
 }
 
 /** Field values sent beside the file; undefined values are left out. */
@@ -30,7 +32,7 @@ export function uploadFile<T>(path: string, file: Blob & { name?: string }, fiel
   const form = new FormData();
   // Text fields first: the server reads them before the file part arrives.
   for (const [k, v] of Object.entries(fields)) if (v !== undefined) form.append(k, v);
-  form.append('file', file, file.name ?? 'upload');
+  form.append(opts.fieldName ?? 'file', file, file.name ?? 'upload');
 
   return new Promise<T>((resolve, reject) => {
     const xhr = new XMLHttpRequest();

@@ -4,15 +4,22 @@
 // transaction. When anything fails, the objects written so far are removed (the sweep catches any
 // that could not be). Limits against hostile archives (OWASP File Upload Cheat Sheet: archives,
 // decompression bombs): entry count, unpacked size, size per entry, and only regular files.
+// An archive is known by the sha256 of its manifest bytes: a shop that already imported it is told
+// so (409 already_imported) before any object is written, unless the owner asked for it `again`;
+// the record of each import (archive_imports, migration 0007) goes in the same transaction as the
+// rows, and its unique index turns a second import running at the same moment into the same 409.
 import { createHash, randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import { Transform, type Readable } from 'node:stream';
 import { createGunzip } from 'node:zlib';
 import tar from 'tar-stream';
+import type { Kysely } from 'kysely';
+import type { Database } from '../../db/schema';
 import type { Deps } from '../deps';
 import { HttpError } from '../http/errors';
 import { logActivity } from '../designs/repository';
 import { sniffUpload } from '../../files/sniff';
+import { ALREADY_IMPORTED, type AlreadyImportedDetails, type ArchiveImportResult } from '../../shared/schemas/archive';
 import {
   ARCHIVE_FORMAT,
   ARCHIVE_SCHEMA_VERSION,
@@ -40,18 +47,13 @@ export const DEFAULT_IMPORT_LIMITS: ImportLimits = {
   maxManifestBytes: 256 * 1024 ** 2,
 };
 
-export interface ImportResult {
-  designs: number;
-  revisions: number;
-  files: number;
-  cutLogs: number;
-  photos: number;
-  devices: { added: number; skipped: number };
-  chargers: { added: number; skipped: number };
-  activity: number;
-  /** Old design id (in the archive) → new design id (in this shop). */
-  designIds: Record<string, string>;
-  revisionIds: Record<string, string>;
+export type ImportResult = ArchiveImportResult;
+
+export interface ImportTarget {
+  shopId: string;
+  userId: string;
+  /** Import even when this shop already imported the same archive: its designs come in as a further copy. */
+  again?: boolean;
 }
 
 const bad = (code: string, message: string) => new HttpError(400, code, message);
@@ -64,7 +66,7 @@ interface Expected extends ArchiveFile {
   seen: boolean;
 }
 
-export async function importArchive(deps: Deps, target: { shopId: string; userId: string }, file: string, limits: ImportLimits = DEFAULT_IMPORT_LIMITS): Promise<ImportResult> {
+export async function importArchive(deps: Deps, target: ImportTarget, file: string, limits: ImportLimits = DEFAULT_IMPORT_LIMITS): Promise<ImportResult> {
   const head = Buffer.alloc(512);
   const fd = await fs.promises.open(file, 'r');
   let headLength: number;
@@ -101,6 +103,7 @@ export async function importArchive(deps: Deps, target: { shopId: string; userId
 
   try {
     let manifest: ArchiveManifest | undefined;
+    let manifestSha256 = '';
     let plan: Plan | undefined;
     let entries = 0;
     try {
@@ -118,7 +121,14 @@ export async function importArchive(deps: Deps, target: { shopId: string; userId
         if (!ArchivePath.safeParse(name).success) throw bad('unsafe_entry', `The archive holds a file with an unsafe name ("${name.slice(0, 80)}").`);
         if (!manifest) {
           if (name !== MANIFEST_NAME) throw bad('no_manifest', `The archive does not start with ${MANIFEST_NAME}, so it is not a Jigwright shop archive (or it was repacked).`);
-          manifest = parseManifest(await readEntry(entry, limits.maxManifestBytes, MANIFEST_NAME));
+          const body = await readEntry(entry, limits.maxManifestBytes, MANIFEST_NAME);
+          manifest = parseManifest(body);
+          manifestSha256 = createHash('sha256').update(body).digest('hex');
+          // Before any object is written: a shop that has this archive already is told so at once.
+          if (!target.again) {
+            const prior = await firstImportOf(deps.db, target.shopId, manifestSha256);
+            if (prior) throw await alreadyImported(deps.db, prior);
+          }
           plan = planKeys(manifest);
           continue;
         }
@@ -150,7 +160,7 @@ export async function importArchive(deps: Deps, target: { shopId: string; userId
     if (!manifest || !plan) throw bad('no_manifest', `The archive is empty: it has no ${MANIFEST_NAME}.`);
     const missing = [...plan.files.entries()].filter(([, f]) => !f.seen).map(([p]) => p);
     if (missing.length) throw bad('missing_files', `The archive is missing ${missing.length} file${missing.length === 1 ? '' : 's'} its manifest lists (the first is "${missing[0].slice(0, 120)}"). Nothing was imported.`);
-    return await insertRows(deps, target, manifest, plan);
+    return await insertRows(deps, target, manifest, manifestSha256, plan);
   } catch (e) {
     source.destroy();
     if (written.length) {
@@ -282,7 +292,46 @@ const chunks = <T>(list: T[], size = 500): T[][] => {
   return out;
 };
 
-async function insertRows(deps: Deps, target: { shopId: string; userId: string }, m: ArchiveManifest, plan: Plan): Promise<ImportResult> {
+type ImportRecord = { id: string; imported_at: Date; imported_by: string | null; designs: number; source_shop_id: string; source_shop_name: string; exported_at: Date };
+
+/** The first import of the archive with this manifest into the shop, if there was one. */
+async function firstImportOf(db: Kysely<Database>, shopId: string, manifestSha256: string): Promise<ImportRecord | undefined> {
+  return db
+    .selectFrom('archive_imports')
+    .select(['id', 'imported_at', 'imported_by', 'designs', 'source_shop_id', 'source_shop_name', 'exported_at'])
+    .where('shop_id', '=', shopId)
+    .where('manifest_sha256', '=', manifestSha256)
+    .where('copy_of', 'is', null)
+    .executeTakeFirst();
+}
+
+const inWords = (d: Date) => `${d.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' })} at ${d.toISOString().slice(11, 16)} UTC`;
+const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
+
+/** 409: the shop has this archive already; when, by whom, how much, and that nothing was added. */
+async function alreadyImported(db: Kysely<Database>, prior: ImportRecord): Promise<HttpError> {
+  const by = prior.imported_by ? await db.selectFrom('users').select('name').where('id', '=', prior.imported_by).executeTakeFirst() : undefined;
+  const copies = Number((await db.selectFrom('archive_imports').select((eb) => eb.fn.countAll<string>().as('n')).where('copy_of', '=', prior.id).executeTakeFirstOrThrow()).n);
+  const details: AlreadyImportedDetails = {
+    importId: prior.id,
+    importedAt: prior.imported_at.toISOString(),
+    importedBy: by && prior.imported_by ? { id: prior.imported_by, name: by.name } : null,
+    designs: prior.designs,
+    sourceShop: { id: prior.source_shop_id, name: prior.source_shop_name },
+    exportedAt: prior.exported_at.toISOString(),
+    copies,
+  };
+  const who = by ? by.name : 'someone who no longer has an account';
+  const since = copies ? ` It has been imported again as copies ${plural(copies, 'time')} since.` : '';
+  return new HttpError(
+    409,
+    ALREADY_IMPORTED,
+    `This archive of ${prior.source_shop_name} (exported ${inWords(prior.exported_at)}) was already imported into this shop on ${inWords(prior.imported_at)} by ${who}, with ${plural(prior.designs, 'design')}.${since} Nothing was added this time. Import it again as copies only if you want a second set of its designs.`,
+    details,
+  );
+}
+
+async function insertRows(deps: Deps, target: ImportTarget, m: ArchiveManifest, manifestSha256: string, plan: Plan): Promise<ImportResult> {
   const { revIds } = plan;
   const designIds = new Map(m.designs.map((d) => [d.id, randomUUID()]));
   const keyOf = (path: string) => plan.files.get(path)!.key;
@@ -299,6 +348,47 @@ async function insertRows(deps: Deps, target: { shopId: string; userId: string }
   for (const r of m.revisions) if ((newestOf.get(r.designId)?.number ?? 0) < r.number) newestOf.set(r.designId, { number: r.number, status: r.status });
 
   return deps.db.transaction().execute(async (tx) => {
+    // The record first: a second first-import of the same archive waits here on the unique index
+    // until this transaction ends, then finds the row and is refused (409) before it writes anything.
+    const record = {
+      shop_id: target.shopId,
+      imported_by: target.userId,
+      source_shop_id: m.shop.id,
+      source_shop_name: m.shop.name,
+      exported_at: m.exportedAt,
+      manifest_sha256: manifestSha256,
+      designs: m.designs.length,
+      revisions: m.revisions.length,
+      files: m.revisions.reduce((n, r) => n + r.files.length, 0),
+      cut_logs: m.cutLogs.length,
+      photos: m.cutLogs.filter((c) => c.photo).length,
+      devices_added: 0,
+      devices_skipped: 0,
+      chargers_added: 0,
+      chargers_skipped: 0,
+      activity: m.activity.length,
+    };
+    let first = await firstImportOf(tx, target.shopId, manifestSha256);
+    let importId: string | undefined;
+    if (!first) {
+      importId = (
+        await tx
+          .insertInto('archive_imports')
+          .values({ ...record, copy_of: null })
+          .onConflict((oc) => oc.columns(['shop_id', 'manifest_sha256']).where('copy_of', 'is', null).doNothing())
+          .returning('id')
+          .executeTakeFirst()
+      )?.id;
+      if (!importId) {
+        // Another import of the same archive into this shop committed while this one was running.
+        first = await firstImportOf(tx, target.shopId, manifestSha256);
+        if (!first) throw new Error('archive_imports: a conflicting import vanished');
+        if (!target.again) throw await alreadyImported(tx, first);
+      }
+    } else if (!target.again) throw await alreadyImported(tx, first);
+    if (!importId) importId = (await tx.insertInto('archive_imports').values({ ...record, copy_of: first!.id }).returning('id').executeTakeFirstOrThrow()).id;
+    const copyOf = first?.id ?? null;
+
     for (const part of chunks(m.designs)) {
       await tx
         .insertInto('designs')
@@ -430,6 +520,8 @@ async function insertRows(deps: Deps, target: { shopId: string; userId: string }
         .execute();
     }
     const result: ImportResult = {
+      importId,
+      copyOf,
       designs: m.designs.length,
       revisions: m.revisions.length,
       files: fileRows.length,
@@ -445,8 +537,13 @@ async function insertRows(deps: Deps, target: { shopId: string; userId: string }
       shopId: target.shopId,
       actorId: target.userId,
       action: 'shop.archive-imported',
-      detail: { fromShop: m.shop.name, exportedAt: m.exportedAt, designs: result.designs, revisions: result.revisions, files: result.files, cutLogs: result.cutLogs },
+      detail: { fromShop: m.shop.name, exportedAt: m.exportedAt, designs: result.designs, revisions: result.revisions, files: result.files, cutLogs: result.cutLogs, copyOf },
     });
+    await tx
+      .updateTable('archive_imports')
+      .set({ devices_added: devicesAdded, devices_skipped: result.devices.skipped, chargers_added: chargersAdded, chargers_skipped: result.chargers.skipped })
+      .where('id', '=', importId)
+      .execute();
     return result;
   });
 }

@@ -7,6 +7,7 @@ import { authOf, type Policy } from '../http/policy';
 import type { ApiRouter } from '../http/router';
 import { readMultipart } from '../http/upload';
 import { shopFromParam } from '../library/locators';
+import { ArchiveImportQuery } from '../../shared/schemas/archive';
 import { archiveName, buildManifest, writeArchive } from './export';
 import { DEFAULT_IMPORT_LIMITS, importArchive } from './import';
 
@@ -41,7 +42,9 @@ export function archiveRoutes(api: ApiRouter): void {
     const { shopId, user } = authOf(req);
     if (!req.file) throw new HttpError(400, 'bad_request', 'Attach the archive (.tar.gz) in the "archive" field');
     try {
-      const result = await importArchive(deps, { shopId: shopId!, userId: user.id }, req.file.path, { ...DEFAULT_IMPORT_LIMITS, maxUnpackedBytes: deps.config.archiveMaxUnpackedBytes });
+      // ?again=true: the owner chose to import an archive this shop already has as a further copy.
+      const q = ArchiveImportQuery.parse(req.query);
+      const result = await importArchive(deps, { shopId: shopId!, userId: user.id, again: q.again === 'true' }, req.file.path, { ...DEFAULT_IMPORT_LIMITS, maxUnpackedBytes: deps.config.archiveMaxUnpackedBytes });
       res.status(201).json(result);
     } finally {
       await fs.promises.rm(req.file.path, { force: true });

@@ -42,8 +42,14 @@ async function download(shopId: string, who = 'owner'): Promise<Buffer> {
   return r.body as Buffer;
 }
 
-const importInto = (shopId: string, archive: Buffer, who = 'owner', http = ctx.http) =>
-  http.post(`/api/shops/${shopId}/archive`).set(auth(who)).attach('archive', archive, 'library.tar.gz');
+const importInto = (shopId: string, archive: Buffer, who = 'owner', http = ctx.http, query = '') =>
+  http.post(`/api/shops/${shopId}/archive${query}`).set(auth(who)).attach('archive', archive, 'library.tar.gz');
+const newShop = async (name: string) => {
+  const r = await ctx.http.post('/api/shops').set(auth('owner')).send({ name });
+  expect(r.status, JSON.stringify(r.body)).toBe(201);
+  return r.body.shop.id as string;
+};
+const designCount = async (shopId: string) => Number((await sql<{ n: string }>`SELECT count(*) AS n FROM designs WHERE shop_id = ${shopId}`.execute(ctx.db)).rows[0].n);
 
 let exported: Buffer;
 let entries: TarEntry[];
@@ -242,11 +248,166 @@ describe('import', () => {
   });
 });
 
+describe('importing the same archive again', () => {
+  let m: any;
+  let ownerName: string;
+  beforeAll(async () => {
+    m = manifestOf(entries);
+    ownerName = (await ctx.db.selectFrom('users').select('name').where('id', '=', seed.users['owner@larchmere.example']).executeTakeFirstOrThrow()).name;
+  });
+
+  it('a second import into the same shop is 409 already_imported, says when, by whom and how much, and adds nothing', async () => {
+    const shopId = await newShop('Larchmere Second Bench');
+    const first = await importInto(shopId, exported);
+    expect(first.status, JSON.stringify(first.body)).toBe(201);
+    expect(first.body.copyOf).toBeNull();
+
+    // The record: the manifest's own bytes hashed here with node:crypto (FIPS 180-4 SHA-256), and
+    // its source and counts read back from the manifest, not from the import's answer.
+    const record = await ctx.db.selectFrom('archive_imports').selectAll().where('shop_id', '=', shopId).execute();
+    expect(record).toHaveLength(1);
+    expect(record[0]).toMatchObject({
+      id: first.body.importId,
+      imported_by: seed.users['owner@larchmere.example'],
+      source_shop_id: seed.shopId,
+      source_shop_name: 'Larchmere Workshop',
+      manifest_sha256: sha(entries[0].body),
+      copy_of: null,
+      designs: m.counts.designs,
+      revisions: m.counts.revisions,
+      files: m.counts.files,
+      cut_logs: m.counts.cutLogs,
+      photos: m.counts.photos,
+      activity: m.counts.activity,
+    });
+    expect(record[0].exported_at.toISOString()).toBe(new Date(m.exportedAt).toISOString());
+    expect(record[0].devices_added + record[0].devices_skipped).toBe(m.devices.length);
+
+    const before = await snapshot(ctx.db, ctx.deps.objects);
+    const second = await importInto(shopId, exported);
+    expect(errorAnswerProblems(second, 409), JSON.stringify(second.body)).toEqual([]);
+    expect(second.body.error.code).toBe('already_imported');
+    const msg: string = second.body.error.message;
+    const importedAt = record[0].imported_at;
+    const day = importedAt.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+    expect(msg).toContain(`on ${day} at ${importedAt.toISOString().slice(11, 16)} UTC`);
+    expect(msg).toContain(`by ${ownerName}`);
+    expect(msg).toContain(`${m.counts.designs} designs`);
+    expect(msg).toContain('Larchmere Workshop');
+    expect(msg).toContain('Nothing was added');
+    expect(second.body.error.details).toMatchObject({
+      importId: first.body.importId,
+      importedBy: { id: seed.users['owner@larchmere.example'], name: ownerName },
+      designs: m.counts.designs,
+      sourceShop: { id: seed.shopId, name: 'Larchmere Workshop' },
+      copies: 0,
+    });
+    // Nothing written: no row in any table, no object, nothing for the sweep.
+    expect(diffSnapshots(before, await snapshot(ctx.db, ctx.deps.objects))).toEqual([]);
+    expect(await designCount(shopId)).toBe(m.counts.designs);
+    expect(await orphans(ctx.deps)).toEqual([]);
+
+    // A damaged copy of the same archive (same manifest, a file missing) is told the same: the
+    // manifest is enough to know, so no file of it is read or written.
+    const damaged = await importInto(shopId, await pack(entries.slice(0, -1)));
+    expect(errorAnswerProblems(damaged, 409)).toEqual([]);
+    expect(damaged.body.error.code).toBe('already_imported');
+    expect(diffSnapshots(before, await snapshot(ctx.db, ctx.deps.objects))).toEqual([]);
+
+    // again=true: the owner means it; a further copy comes in and its record says whose copy it is.
+    const again = await importInto(shopId, exported, 'owner', ctx.http, '?again=true');
+    expect(again.status, JSON.stringify(again.body)).toBe(201);
+    expect(again.body.copyOf).toBe(first.body.importId);
+    expect(again.body.designs).toBe(m.counts.designs);
+    expect(await designCount(shopId)).toBe(2 * m.counts.designs);
+    const firstIds = new Set(Object.values(first.body.designIds));
+    expect(Object.values(again.body.designIds).some((id) => firstIds.has(id as string))).toBe(false);
+    const copy = await ctx.db.selectFrom('archive_imports').selectAll().where('id', '=', again.body.importId).executeTakeFirstOrThrow();
+    expect(copy).toMatchObject({ shop_id: shopId, copy_of: first.body.importId, manifest_sha256: sha(entries[0].body), designs: m.counts.designs });
+    const logged = await ctx.db.selectFrom('activity').select('detail').where('shop_id', '=', shopId).where('action', '=', 'shop.archive-imported').orderBy('created_at').execute();
+    expect(logged.map((a) => (a.detail as { copyOf: string | null }).copyOf)).toEqual([null, first.body.importId]);
+    const after = await snapshot(ctx.db, ctx.deps.objects);
+    expect(after.objects.length - before.objects.length).toBe(m.counts.files + m.counts.photos);
+    expect(await orphans(ctx.deps)).toEqual([]);
+    expect(await revisionProblems(ctx.deps)).toEqual([]);
+
+    // Without the flag it is refused again, and the answer counts the copy.
+    const third = await importInto(shopId, exported);
+    expect(third.status).toBe(409);
+    expect(third.body.error.details.copies).toBe(1);
+    expect(third.body.error.message).toContain('imported again as copies 1 time since');
+    expect(await designCount(shopId)).toBe(2 * m.counts.designs);
+  }, 90_000);
+
+  it('again must be "true" or "false"; anything else is refused before the archive is read', async () => {
+    const before = await snapshot(ctx.db, ctx.deps.objects);
+    for (const query of ['?again=yes', '?again=true&again=true', '?again[x]=1', '?copies=2']) {
+      const r = await importInto(targetShopId, exported, 'owner', ctx.http, query);
+      expect(errorAnswerProblems(r, 400), query).toEqual([]);
+      expect(r.body.error.code, query).toBe('invalid_input');
+    }
+    expect(diffSnapshots(before, await snapshot(ctx.db, ctx.deps.objects))).toEqual([]);
+  });
+
+  it('another shop can import an archive this one already has', async () => {
+    const a = await newShop('Larchmere Fourth Bench');
+    const b = await newShop('Larchmere Fifth Bench');
+    expect((await importInto(a, exported)).status).toBe(201);
+    const r = await importInto(b, exported);
+    expect(r.status, JSON.stringify(r.body)).toBe(201);
+    expect(r.body.copyOf).toBeNull();
+    expect(await designCount(b)).toBe(m.counts.designs);
+    expect(await designCount(a)).toBe(m.counts.designs);
+  }, 60_000);
+
+  it('two imports of the same archive at the same moment: exactly one succeeds, the other is 409 and leaves nothing', async () => {
+    const shopId = await newShop('Larchmere Sixth Bench');
+    const before = await snapshot(ctx.db, ctx.deps.objects);
+    // Each import's object writes wait until both imports are writing, so both have passed the
+    // early check and both reach the transaction: only the unique index can tell them apart.
+    const objects = ctx.deps.objects;
+    const realPut = objects.put.bind(objects);
+    let putting = 0;
+    let release!: () => void;
+    const bothWriting = new Promise<void>((resolve) => (release = resolve));
+    const timer = setTimeout(release, 20_000); // never hang the suite if one import fails early
+    objects.put = async (key, body, type) => {
+      if (++putting === 2) release();
+      await bothWriting;
+      return realPut(key, body, type);
+    };
+    let answers;
+    try {
+      answers = await Promise.all([importInto(shopId, exported), importInto(shopId, exported)]);
+    } finally {
+      objects.put = realPut;
+      clearTimeout(timer);
+    }
+    expect(answers.map((a) => a.status).sort(), JSON.stringify(answers.map((a) => a.body.error ?? a.body.importId))).toEqual([201, 409]);
+    const lost = answers.find((a) => a.status === 409)!;
+    expect(errorAnswerProblems(lost, 409)).toEqual([]);
+    expect(lost.body.error.code).toBe('already_imported');
+    const won = answers.find((a) => a.status === 201)!;
+    expect(lost.body.error.details.importId).toBe(won.body.importId);
+    // Exactly one set: its rows, its record, its objects; the loser's objects are gone.
+    expect(await designCount(shopId)).toBe(m.counts.designs);
+    expect(await ctx.db.selectFrom('archive_imports').select('id').where('shop_id', '=', shopId).execute()).toEqual([{ id: won.body.importId }]);
+    const after = await snapshot(ctx.db, ctx.deps.objects);
+    expect(after.objects.length - before.objects.length).toBe(m.counts.files + m.counts.photos);
+    expect(await orphans(ctx.deps)).toEqual([]);
+    expect(await revisionProblems(ctx.deps)).toEqual([]);
+  }, 90_000);
+});
+
 describe('hostile archives are refused whole', () => {
   let small: TestContext;
   let smallShop: string;
   let smallToken: string;
+  // A shop that never imported this archive: the cases keep its manifest and must each fail on
+  // their own fault, not on already_imported.
+  let hostileShopId: string;
   beforeAll(async () => {
+    hostileShopId = await newShop('Larchmere Proving Bench');
     // Small limits, so the oversize and decompression-bomb cases stay small.
     small = await createTestContext({ ARCHIVE_MAX_BYTES: String(4 * 1024 * 1024), ARCHIVE_MAX_UNPACKED_BYTES: String(8 * 1024 * 1024) });
     const s = await seedDemo(small.db, { bcryptCost: 4 });
@@ -303,7 +464,7 @@ describe('hostile archives are refused whole', () => {
       tally.tried++;
       tally.failed++; // undone at the end when every check passed
       const before = await snapshot(ctx.db, ctx.deps.objects);
-      const r = await importInto(targetShopId, await make());
+      const r = await importInto(hostileShopId, await make());
       const problems = errorAnswerProblems(r, status);
       expect(problems, JSON.stringify(r.body)).toEqual([]);
       if (typeof code === 'string') expect(r.body.error.code).toBe(code);
