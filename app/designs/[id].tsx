@@ -11,17 +11,20 @@ import { ForkPanel } from '@/components/designs/ForkPanel';
 import { Lineage } from '@/components/designs/Lineage';
 import { RevisionDrawing } from '@/components/designs/RevisionDrawing';
 import { RevisionHistory, sourceText } from '@/components/designs/RevisionHistory';
+import { ShopLine } from '@/components/designs/ShopLine';
 import { Segmented } from '@/components/forms/Segmented';
 import { useDisplayUnits } from '@/components/forms/useDisplayUnits';
 import { AppFrame } from '@/components/layout/AppFrame';
 import { Button, formatWhen, KIND_LABEL, LinkButton, Loading, Notice, Section, StatusBadge, Tag } from '@/components/library/controls';
 import { canEdit, useRoleIn } from '@/components/library/shopAccess';
+import { useShopOfScreen } from '@/components/shop/CurrentShop';
 import { space, theme, useBreakpoint } from '@/components/ui';
 import type { DesignDetail } from '@/shared/schemas/library';
 
 export default function DesignScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
   const design = useDesign(id);
+  useShopOfScreen(design.data?.shopId);
   if (design.isLoading) {
     return (
       <AppFrame title="Design">
@@ -66,9 +69,9 @@ function DesignPage({ design }: { design: DesignDetail }) {
   return (
     <View style={{ gap: space.lg }}>
       <View style={theme.card}>
+        <ShopLine shopName={design.shopName} />
         <View style={[theme.row, { flexWrap: 'wrap' }]}>
           <Text style={theme.label}>{KIND_LABEL[design.kind]}</Text>
-          <Text style={theme.muted}>in {design.shopName}</Text>
           {design.material ? <Text style={theme.muted}>· {design.material}</Text> : null}
         </View>
         {design.description ? <Text style={theme.body}>{design.description}</Text> : null}

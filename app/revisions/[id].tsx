@@ -5,11 +5,13 @@ import { useRevision } from '@/components/api/revisions';
 import { AppFrame } from '@/components/layout/AppFrame';
 import { Button, LinkButton, Loading, Notice } from '@/components/library/controls';
 import { RevisionPage } from '@/components/revision/RevisionPage';
+import { useShopOfScreen } from '@/components/shop/CurrentShop';
 
 export default function RevisionScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
   const revision = useRevision(id);
   const design = useDesign(revision.data?.designId);
+  useShopOfScreen(design.data?.shopId);
   if (revision.isLoading || (revision.data && design.isLoading)) {
     return (
       <AppFrame title="Revision">

@@ -8,6 +8,7 @@ import type { DesignDetail } from '../../shared/schemas/library';
 import { useRevisionModel, type RevisionWithTitle } from '../api/revisions';
 import { CutLog } from '../cuts/CutLog';
 import { DownloadPanel } from '../designs/DownloadPanel';
+import { ShopLine } from '../designs/ShopLine';
 import { FitNotesView, GeometrySummaryView } from '../designs/FitNotesView';
 import { modelLayerPaths } from '../designs/modelPaths';
 import { PanZoomDrawing } from '../drawing/PanZoomDrawing';
@@ -114,9 +115,10 @@ export function RevisionPage({ revision, design }: { revision: RevisionWithTitle
           </Text>
           <StatusBadge status={revision.status} />
         </View>
+        <ShopLine shopName={design.shopName} />
         <Text style={theme.body}>{revision.message}</Text>
         <Text style={theme.muted}>
-          {revision.source === 'generated' ? `Generated (${revision.generatorId})` : 'Uploaded file'} · {revision.author?.name ?? 'someone'} · {formatWhen(revision.createdAt, true)} · {design.shopName}
+          {revision.source === 'generated' ? `Generated (${revision.generatorId})` : 'Uploaded file'} · {revision.author?.name ?? 'someone'} · {formatWhen(revision.createdAt, true)}
         </Text>
       </View>
       <UnitsToggle units={units} onChange={setUnits} />

@@ -1,6 +1,9 @@
 // The shop the app is working in: one of the signed-in person's shops, remembered on this browser
-// (localStorage on web) and shared by every screen through a small context.
-import { createContext, useCallback, useContext, useMemo, useState, type ReactNode } from 'react';
+// (localStorage on web) and shared by every screen through a small context. A screen that shows
+// one shop's design or revision makes that shop the current one while it is on show
+// (useShopOfScreen), so the top bar, the role and the library link match what is on screen.
+import { useFocusEffect } from 'expo-router';
+import { createContext, useCallback, useContext, useMemo, useState, type Dispatch, type ReactNode, type SetStateAction } from 'react';
 import type { Me, Role, ShopSummary } from '../../shared/schemas/auth';
 import { useMe } from '../api/auth';
 
@@ -33,6 +36,9 @@ interface ShopContextValue {
   shops: ShopSummary[];
   current: ShopSummary | null;
   choose: (shopId: string) => void;
+  /** The shop the screen on show belongs to (a design's, a revision's), or null on other screens. */
+  screenShopId: string | null;
+  setScreenShopId: Dispatch<SetStateAction<string | null>>;
   isLoading: boolean;
   error: Error | null;
   refetch: () => void;
@@ -43,14 +49,15 @@ const ShopContext = createContext<ShopContextValue | null>(null);
 export function CurrentShopProvider({ children }: { children: ReactNode }) {
   const me = useMe();
   const [chosen, setChosen] = useState<string | null>(readStored);
+  const [screenShopId, setScreenShopId] = useState<string | null>(null);
   const choose = useCallback((shopId: string) => {
     setChosen(shopId);
     writeStored(shopId);
   }, []);
   const value = useMemo<ShopContextValue>(() => {
     const shops = me.data?.shops ?? [];
-    return { me: me.data, shops, current: pickShop(shops, chosen), choose, isLoading: me.isLoading, error: me.error, refetch: () => void me.refetch() };
-  }, [me.data, me.isLoading, me.error, me.refetch, chosen, choose]);
+    return { me: me.data, shops, current: pickShop(shops, chosen), choose, screenShopId, setScreenShopId, isLoading: me.isLoading, error: me.error, refetch: () => void me.refetch() };
+  }, [me.data, me.isLoading, me.error, me.refetch, chosen, choose, screenShopId]);
   return <ShopContext.Provider value={value}>{children}</ShopContext.Provider>;
 }
 
@@ -75,6 +82,27 @@ export function useCurrentShop(): CurrentShop | null {
 
 export function useChooseShop(): (shopId: string) => void {
   return useShopContext().choose;
+}
+
+/**
+ * For a screen that shows one shop's design or revision: while the screen is in focus, that shop is
+ * the current one — the same as choosing it in the switcher — when the person belongs to it. Runs on
+ * focus only: Expo Router keeps earlier screens of the stack mounted but hidden, and they must not
+ * pull the current shop back; going back to one of them focuses it again and switches back. A shop
+ * the person is not a member of changes nothing (the API answers 404 for its designs anyway).
+ */
+export function useShopOfScreen(shopId: string | null | undefined): void {
+  const { shops, choose, setScreenShopId } = useShopContext();
+  const member = !!shopId && shops.some((s) => s.id === shopId);
+  useFocusEffect(
+    useCallback(() => {
+      if (!shopId || !member) return undefined;
+      choose(shopId);
+      setScreenShopId(shopId);
+      // On leaving, forget it unless the next screen has already put its own shop there.
+      return () => setScreenShopId((cur) => (cur === shopId ? null : cur));
+    }, [shopId, member, choose, setScreenShopId]),
+  );
 }
 
 export function useMyShops() {

@@ -1,5 +1,7 @@
 // The current shop in the top bar; opens into the list of the person's shops to switch between.
-import { Link } from 'expo-router';
+// Choosing another shop while a design or revision of a different shop is on show opens the chosen
+// shop's library, so the top bar never names one shop over another shop's design.
+import { Link, router } from 'expo-router';
 import { useState } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { colors, fonts, radius, space } from '../ui';
@@ -7,7 +9,7 @@ import { useShopContext } from './CurrentShop';
 import { ROLE_LABEL } from '../../shared/schemas/auth';
 
 export function ShopSwitcher() {
-  const { me, shops, current, choose } = useShopContext();
+  const { me, shops, current, choose, screenShopId } = useShopContext();
   const [open, setOpen] = useState(false);
   if (!me) return null;
   if (!current) {
@@ -43,6 +45,7 @@ export function ShopSwitcher() {
               onPress={() => {
                 choose(s.id);
                 setOpen(false);
+                if (screenShopId && screenShopId !== s.id) router.push('/library');
               }}
               style={({ hovered }: { hovered?: boolean }) => [styles.item, s.id === current.id && styles.itemOn, hovered && styles.itemHover]}
             >

@@ -42,6 +42,14 @@ async function useShop(page: Page, shopId: string) {
 // Expo Router's stack keeps earlier screens mounted but hidden: look only at the one on show.
 const shown = (l: Locator) => l.filter({ visible: true });
 
+/** Waits until the top bar's shop switcher names this shop and role, and no other shop. */
+async function switcherShows(page: Page, shopName: string, role: string, notName: string) {
+  const switcher = shown(page.getByTestId('shop-switcher'));
+  await switcher.getByText(shopName, { exact: true }).waitFor({ timeout: 30000 });
+  expect(await switcher.getAttribute('aria-label')).toBe(`Current shop: ${shopName}, ${role}. Switch shop`);
+  expect(await switcher.innerText()).not.toContain(notName);
+}
+
 const dxfUpload = (name: string, text: string) => ({ name, mimeType: 'application/dxf', buffer: Buffer.from(text) });
 
 describe('library, revisions and forks in the browser', () => {
@@ -162,26 +170,74 @@ describe('library, revisions and forks in the browser', () => {
   it('another member (the editor, signed in elsewhere) forks r1 into Otterbrook Makerspace and sees the lineage on both designs', async () => {
     const { page } = other;
     const larchmere = editorShops.find((s) => s.name === 'Larchmere Workshop')!;
+    const otterbrook = editorShops.find((s) => s.name === 'Otterbrook Makerspace')!;
     expect(larchmere.role).toBe('editor');
-    expect(editorShops.find((s) => s.name === 'Otterbrook Makerspace')?.role).toBe('editor');
-    await useShop(page, larchmere.id);
+    expect(otterbrook?.role).toBe('editor');
+    // Start in the other shop: opening a Larchmere design makes Larchmere the current shop.
+    await useShop(page, otterbrook.id);
     await page.goto(designUrl);
+    await shown(page.getByTestId('design-shop')).getByText('In Larchmere Workshop', { exact: true }).waitFor({ timeout: 30000 });
+    await switcherShows(page, 'Larchmere Workshop', 'Editor', 'Otterbrook');
     await page.getByTestId('fork-open').click();
     const panel = page.getByTestId('fork-panel');
     await panel.getByRole('radio', { name: 'Otterbrook Makerspace' }).click();
     await panel.getByTestId('fork-submit').click();
     await page.waitForURL((u) => u.href !== designUrl && /\/designs\/[0-9a-f-]{36}$/.test(u.pathname), { timeout: 30000 });
+    const forkUrl = page.url();
     const lineage = shown(page.getByTestId('lineage'));
     await lineage.getByText('in Larchmere Workshop', { exact: false }).waitFor({ timeout: 30000 });
     await lineage.getByRole('link', { name: TITLE }).waitFor();
-    await shown(page.getByText('in Otterbrook Makerspace', { exact: true })).waitFor();
+    await shown(page.getByTestId('design-shop')).getByText('In Otterbrook Makerspace', { exact: true }).waitFor();
     await shown(page.getByTestId('selected-revision')).getByText(`Forked from ${TITLE} r1 (Larchmere Workshop)`).waitFor();
+    // The fork opens in its own shop: the switcher follows, and so does the choice kept for next time.
+    await switcherShows(page, 'Otterbrook Makerspace', 'Editor', 'Larchmere');
+    expect(await page.evaluate(() => localStorage.getItem('jigwright.currentShop'))).toBe(otterbrook.id);
     await screenshot(page, 'design-fork-wide');
+    await resize(page, PHONE);
+    await switcherShows(page, 'Otterbrook Makerspace', 'Editor', 'Larchmere');
+    await screenshot(page, 'design-fork-phone');
+    await resize(page, WIDE);
 
+    // Back to the source, a design of the first shop: the top bar switches back.
     await lineage.getByRole('link', { name: TITLE }).click();
     await page.waitForURL(designUrl);
     await shown(page.getByTestId('lineage')).getByText('Forked 1 time').waitFor({ timeout: 30000 });
     await shown(page.getByTestId('lineage')).getByText('in Otterbrook Makerspace, from r1', { exact: false }).waitFor();
+    await shown(page.getByTestId('design-shop')).getByText('In Larchmere Workshop', { exact: true }).waitFor();
+    await switcherShows(page, 'Larchmere Workshop', 'Editor', 'Otterbrook');
+
+    // The browser's back button shows the fork again (a screen kept in the stack): Otterbrook again.
+    await page.goBack();
+    await page.waitForURL(forkUrl);
+    await switcherShows(page, 'Otterbrook Makerspace', 'Editor', 'Larchmere');
+
+    // The Library link now opens the fork's shop, with the fork in it.
+    await shown(page.getByRole('navigation')).getByRole('link', { name: 'Library', exact: true }).click();
+    await page.waitForURL('**/library');
+    await shown(page.getByText('Jigs, templates and inserts of', { exact: false })).getByText('Otterbrook Makerspace', { exact: true }).waitFor({ timeout: 30000 });
+    await shown(page.getByRole('table', { name: 'Designs' })).getByRole('link', { name: TITLE }).waitFor({ timeout: 30000 });
+
+    // Choosing the other shop in the switcher while a design is on show opens that shop's library
+    // rather than leaving the top bar naming one shop over the other shop's design.
+    await page.goto(forkUrl);
+    await switcherShows(page, 'Otterbrook Makerspace', 'Editor', 'Larchmere');
+    await shown(page.getByTestId('shop-switcher')).click();
+    await shown(page.getByRole('menuitem', { name: 'Switch to Larchmere Workshop' })).click();
+    await page.waitForURL('**/library');
+    await switcherShows(page, 'Larchmere Workshop', 'Editor', 'Otterbrook');
+    await shown(page.getByText('Jigs, templates and inserts of', { exact: false })).getByText('Larchmere Workshop', { exact: true }).waitFor({ timeout: 30000 });
+
+    // A revision of the fork, opened straight from its address, switches to Otterbrook too.
+    const forkId = new URL(forkUrl).pathname.split('/').pop()!;
+    const fork = (await (await other.context.request.get(`${baseUrl()}/api/designs/${forkId}`)).json()) as { revisions: { id: string; number: number }[] };
+    await page.goto(`${baseUrl()}/revisions/${fork.revisions[0]!.id}`);
+    await shown(page.getByTestId('design-shop')).getByText('In Otterbrook Makerspace', { exact: true }).waitFor({ timeout: 30000 });
+    await switcherShows(page, 'Otterbrook Makerspace', 'Editor', 'Larchmere');
+    await screenshot(page, 'revision-fork-wide');
+    await resize(page, PHONE);
+    await switcherShows(page, 'Otterbrook Makerspace', 'Editor', 'Larchmere');
+    await screenshot(page, 'revision-fork-phone');
+    await resize(page, WIDE);
   });
 
   it('the editor downloads r1 as a DXF named <title>-r1.dxf that reads back in millimetres', async () => {

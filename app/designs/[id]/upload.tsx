@@ -17,6 +17,7 @@ import { useDisplayUnits } from '@/components/forms/useDisplayUnits';
 import { AppFrame } from '@/components/layout/AppFrame';
 import { Button, FieldError, LinkButton, Loading, Notice, Section, TextField } from '@/components/library/controls';
 import { canEdit, useRoleIn } from '@/components/library/shopAccess';
+import { useShopOfScreen } from '@/components/shop/CurrentShop';
 import { colors, radius, space, theme, useBreakpoint } from '@/components/ui';
 import { REVISION_STATUSES, STATUS_HELP, STATUS_LABEL, type DesignDetail } from '@/shared/schemas/library';
 
@@ -24,6 +25,7 @@ export default function UploadScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
   const design = useDesign(id);
   const role = useRoleIn(design.data?.shopId);
+  useShopOfScreen(design.data?.shopId);
   if (design.isLoading) {
     return (
       <AppFrame title="Upload a revision">

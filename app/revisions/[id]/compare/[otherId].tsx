@@ -1,13 +1,19 @@
 import { useLocalSearchParams } from 'expo-router';
 import { ApiError } from '@/components/api/client';
 import { useComparison } from '@/components/api/compare';
+import { useDesign } from '@/components/api/designs';
 import { CompareView } from '@/components/compare/CompareView';
 import { AppFrame } from '@/components/layout/AppFrame';
 import { Button, LinkButton, Loading, Notice } from '@/components/library/controls';
+import { useShopOfScreen } from '@/components/shop/CurrentShop';
 
 export default function CompareScreen() {
   const { id, otherId } = useLocalSearchParams<{ id: string; otherId: string }>();
   const cmp = useComparison(id, otherId);
+  // The two may be in different shops (a fork beside its source): the top bar follows the first,
+  // the revision this comparison was opened from.
+  const first = useDesign(cmp.data?.a.designId);
+  useShopOfScreen(first.data?.shopId);
   if (cmp.isLoading) {
     return (
       <AppFrame title="Compare">
