@@ -13,7 +13,7 @@ import { Segmented } from '../forms/Segmented';
 import { Button, FieldError, Notice, TextField } from '../library/controls';
 import { colors, radius, space, theme, useBreakpoint } from '../ui';
 import { FitPlot } from './FitPlot';
-import { LengthInput } from './LengthInput';
+import { LengthBox } from '../library/LengthBox';
 
 /** The device a revision fits, as the server keys the fit history: its name, else W×L×T mm. */
 export function deviceKeyOf(fitNotes: RevisionInfo['fitNotes'] | null | undefined): string | null {
@@ -170,12 +170,12 @@ function CutForm({ revision, units, material, onMaterial }: { revision: Revision
             />
           )}
         />
-        <Controller control={control} name="bitMm" render={({ field }) => <LengthInput label="Bit diameter" units={units} value={field.value} onChange={(v) => field.onChange(v)} onBlur={field.onBlur} error={say(errors.bitMm, 'Bit diameter', 50)} testID="cut-bit" />} />
+        <Controller control={control} name="bitMm" render={({ field }) => <LengthBox label="Bit diameter" units={units} value={field.value} onChange={(v) => field.onChange(v)} onBlur={field.onBlur} error={say(errors.bitMm, 'Bit diameter', 50)} testID="cut-bit" />} />
         <Controller
           control={control}
           name="clearanceMm"
           render={({ field }) => (
-            <LengthInput
+            <LengthBox
               label="Clearance per side"
               units={units}
               value={field.value}
@@ -187,8 +187,8 @@ function CutForm({ revision, units, material, onMaterial }: { revision: Revision
             />
           )}
         />
-        <Controller control={control} name="measuredWidthMm" render={({ field }) => <LengthInput label="Pocket measured, width" units={units} value={field.value} onChange={(v) => field.onChange(v)} onBlur={field.onBlur} error={say(errors.measuredWidthMm, 'Measured width', 2000)} testID="cut-measured-width" />} />
-        <Controller control={control} name="measuredLengthMm" render={({ field }) => <LengthInput label="Pocket measured, length" units={units} value={field.value} onChange={(v) => field.onChange(v)} onBlur={field.onBlur} error={say(errors.measuredLengthMm, 'Measured length', 2000)} testID="cut-measured-length" />} />
+        <Controller control={control} name="measuredWidthMm" render={({ field }) => <LengthBox label="Pocket measured, width" units={units} value={field.value} onChange={(v) => field.onChange(v)} onBlur={field.onBlur} error={say(errors.measuredWidthMm, 'Measured width', 2000)} testID="cut-measured-width" />} />
+        <Controller control={control} name="measuredLengthMm" render={({ field }) => <LengthBox label="Pocket measured, length" units={units} value={field.value} onChange={(v) => field.onChange(v)} onBlur={field.onBlur} error={say(errors.measuredLengthMm, 'Measured length', 2000)} testID="cut-measured-length" />} />
       </View>
       <Controller
         control={control}
