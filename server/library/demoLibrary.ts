@@ -63,9 +63,9 @@ const DEMO_DESIGNS: DemoDesign[] = [
     tags: ['charger', 'nightstand'],
     material: 'walnut',
     revisions: [
-      { generatorId: 'charger-insert', params: bedsideBase, message: 'Plywood test piece for the small phone', status: 'trial', fitNotes: insertNotes(phoneS, roundPad, 'birch plywood', 12, 0.4, 'Test cut: plate dropped in with an even gap.') },
-      { generatorId: 'charger-insert', params: { ...bedsideBase, stock: 'black-walnut', cut: 'quartersawn', fitClearance: 0.6 }, message: 'Walnut, quartersawn; more clearance for seasonal movement', status: 'proven', fitNotes: insertNotes(phoneS, roundPad, 'black walnut', 12, 0.6, 'Fits in winter and summer.') },
-      { generatorId: 'charger-insert', params: { ...bedsideBase, stock: 'black-walnut', cut: 'quartersawn', fitClearance: 0.6, ...deviceParams(phoneL), openingWidth: 140, openingLength: 220 }, message: 'Regenerated for the large phone', status: 'draft', fitNotes: insertNotes(phoneL, roundPad, 'black walnut', 12, 0.6, '') },
+      { generatorId: 'charger-insert', params: bedsideBase, message: 'Plywood test piece for the small phone', status: 'trial', fitNotes: insertNotes(phoneS, roundPad, 'birch plywood', 12, 1, 'Test cut: plate dropped in with an even gap; the phone sits in its pocket with room to lift it out.') },
+      { generatorId: 'charger-insert', params: { ...bedsideBase, stock: 'black-walnut', cut: 'quartersawn', fitClearance: 0.6 }, message: 'Walnut, quartersawn; more clearance for seasonal movement', status: 'proven', fitNotes: insertNotes(phoneS, roundPad, 'black walnut', 12, 1, 'Plate fits the opening in winter and summer.') },
+      { generatorId: 'charger-insert', params: { ...bedsideBase, stock: 'black-walnut', cut: 'quartersawn', fitClearance: 0.6, ...deviceParams(phoneL), openingWidth: 140, openingLength: 220 }, message: 'Regenerated for the large phone', status: 'draft', fitNotes: insertNotes(phoneL, roundPad, 'black walnut', 12, 1, '') },
     ],
   },
   {
@@ -75,9 +75,9 @@ const DEMO_DESIGNS: DemoDesign[] = [
     tags: ['charger', 'desk'],
     material: 'white oak',
     revisions: [
-      { generatorId: 'charger-insert', params: { ...bedsideBase, ...deviceParams(phoneL), openingWidth: 150, openingLength: 230, padShape: 'rect', padWidth: 72, padLength: 72, padThickness: 7.5, ratedMin: 1, ratedMax: 5, stock: 'white-oak', cornerStyle: 'dogbone', plateThickness: 16 }, message: 'First draw', status: 'trial', fitNotes: insertNotes(phoneL, squarePad, 'white oak', 16, 0.4, 'Came out tight on the long sides.') },
-      { generatorId: 'charger-insert', params: { ...bedsideBase, ...deviceParams(phoneL), openingWidth: 150, openingLength: 230, padShape: 'rect', padWidth: 72, padLength: 72, padThickness: 7.5, ratedMin: 1, ratedMax: 5, stock: 'white-oak', cornerStyle: 'dogbone', plateThickness: 16, fitClearance: 0.7 }, message: 'Opened the fit clearance to 0.7 mm', status: 'proven', fitNotes: insertNotes(phoneL, squarePad, 'white oak', 16, 0.7, 'Good fit.') },
-      { generatorId: 'charger-insert', params: { ...bedsideBase, ...deviceParams(DEMO_DEVICES[2]), openingWidth: 150, openingLength: 230, padShape: 'rect', padWidth: 72, padLength: 72, padThickness: 7.5, ratedMin: 1, ratedMax: 5, stock: 'white-oak', cornerStyle: 'dogbone', plateThickness: 16, fitClearance: 0.7 }, message: 'Rugged case needs a bigger pocket', status: 'draft', fitNotes: insertNotes(DEMO_DEVICES[2], squarePad, 'white oak', 16, 0.7, '') },
+      { generatorId: 'charger-insert', params: { ...bedsideBase, ...deviceParams(phoneL), openingWidth: 150, openingLength: 230, padShape: 'rect', padWidth: 72, padLength: 72, padThickness: 7.5, ratedMin: 1, ratedMax: 5, stock: 'white-oak', cornerStyle: 'dogbone', plateThickness: 16, pocketClearance: 0.5 }, message: 'First draw', status: 'trial', fitNotes: insertNotes(phoneL, squarePad, 'white oak', 16, 0.5, 'The phone pocket came out tight on the long sides.') },
+      { generatorId: 'charger-insert', params: { ...bedsideBase, ...deviceParams(phoneL), openingWidth: 150, openingLength: 230, padShape: 'rect', padWidth: 72, padLength: 72, padThickness: 7.5, ratedMin: 1, ratedMax: 5, stock: 'white-oak', cornerStyle: 'dogbone', plateThickness: 16, pocketClearance: 0.8, fitClearance: 0.7 }, message: 'Opened the pocket clearance to 0.8 mm and the plate fit to 0.7 mm', status: 'proven', fitNotes: insertNotes(phoneL, squarePad, 'white oak', 16, 0.8, 'Good fit: the phone lifts out easily, the plate sits flush.') },
+      { generatorId: 'charger-insert', params: { ...bedsideBase, ...deviceParams(DEMO_DEVICES[2]), openingWidth: 150, openingLength: 230, padShape: 'rect', padWidth: 72, padLength: 72, padThickness: 7.5, ratedMin: 1, ratedMax: 5, stock: 'white-oak', cornerStyle: 'dogbone', plateThickness: 16, pocketClearance: 0.8, fitClearance: 0.7 }, message: 'Rugged case needs a bigger pocket', status: 'draft', fitNotes: insertNotes(DEMO_DEVICES[2], squarePad, 'white oak', 16, 0.8, '') },
     ],
   },
   {
@@ -185,13 +185,14 @@ export async function seedDemoLibrary(deps: Deps, seed: SeedResult): Promise<{ c
   return { created: DEMO_DESIGNS.length + 1 };
 }
 
-// A few invented test cuts so the fit history has something to suggest from.
+// A few invented test cuts so the fit history has something to suggest from. Their clearance is the
+// device's in its pocket, per side, as the fit notes and the cut log record it.
 async function seedDemoCuts(deps: Deps, seed: SeedResult, bedside: string[], desk: string[]) {
   const author = seed.users['editor@larchmere.example'];
   const rows = [
-    { revision_id: bedside[0], cut_on: '2026-09-12', material: 'birch plywood', clearance_mm: 0.4, result: 'good' as const, device_key: phoneS.name },
-    { revision_id: desk[0], cut_on: '2026-10-03', material: 'white oak', clearance_mm: 0.4, result: 'tight' as const, device_key: phoneL.name },
-    { revision_id: desk[1], cut_on: '2026-10-10', material: 'white oak', clearance_mm: 0.7, result: 'good' as const, device_key: phoneL.name },
+    { revision_id: bedside[0], cut_on: '2026-09-12', material: 'birch plywood', clearance_mm: 1, result: 'good' as const, device_key: phoneS.name },
+    { revision_id: desk[0], cut_on: '2026-10-03', material: 'white oak', clearance_mm: 0.5, result: 'tight' as const, device_key: phoneL.name },
+    { revision_id: desk[1], cut_on: '2026-10-10', material: 'white oak', clearance_mm: 0.8, result: 'good' as const, device_key: phoneL.name },
   ];
   await deps.db
     .insertInto('cut_logs')
