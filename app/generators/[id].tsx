@@ -55,7 +55,7 @@ function WorkbenchWithSave(props: { generator: GeneratorDef; initialParams?: Par
   return (
     <>
       {form}
-      <GeneratorWorkbench generator={props.generator} initialParams={props.initialParams} onSave={onSave} />
+      <GeneratorWorkbench generator={props.generator} initialParams={props.initialParams} onSave={onSave} initialDevice={props.fitNotes?.device?.name} />
     </>
   );
 }

@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { Fragment, useEffect, useImperativeHandle, useMemo, useRef, useState, type ReactNode, type Ref } from 'react';
 import { get, useController, useForm, useFormState, type Control, type FieldErrors, type Resolver, type ResolverOptions } from 'react-hook-form';
 import { Pressable, StyleSheet, Switch, Text, TextInput, View, type TextStyle } from 'react-native';
 import type { z } from 'zod';
@@ -10,6 +10,15 @@ import { formatParamInput, formatParamValue, isLength, parseParamText, rangeText
 import type { DisplayUnits } from './useDisplayUnits';
 
 export type FlagSeverity = 'info' | 'caution' | 'danger';
+
+/** What a screen may do to a mounted form from outside (through the `handle` prop). */
+export interface ParamFormHandle {
+  /**
+   * Writes these values (mm for lengths) into their fields, shown in the current units, and
+   * validates and reports the form as after an edit. Params not named keep what they hold.
+   */
+  setValues(values: Partial<ParamValues>): void;
+}
 
 export interface ParamFormProps {
   decls: ParamDecl[];
@@ -31,6 +40,13 @@ export interface ParamFormProps {
   /** Sections fold open and shut; `openSections` says which start open. */
   collapsible?: boolean;
   openSections?: 'all' | 'first';
+  /** Receives the form's `setValues` (see ParamFormHandle), e.g. to fill fields from a saved device. */
+  handle?: Ref<ParamFormHandle>;
+  /** Fires when the person edits a field (typing, a choice, a switch), by param name; not for `setValues`. */
+  onFieldEdit?: (name: string) => void;
+  /** Extra content shown just above / just below a field, by param name (in that field's section). */
+  beforeField?: Record<string, ReactNode>;
+  afterField?: Record<string, ReactNode>;
 }
 
 /** Form state: number fields hold the text as typed, choices their value, booleans themselves. */
@@ -86,7 +102,7 @@ function makeResolver(decls: ParamDecl[], unitsRef: { current: DisplayUnits }, e
 }
 
 /** A form generated from parameter declarations: sections per group, help and range under each field, errors inline. */
-export function ParamForm({ decls, initialValues, units, onChange, onValidityChange, externalErrors, flagged, onlyFields, disabled = false, collapsible = false, openSections = 'all' }: ParamFormProps) {
+export function ParamForm({ decls, initialValues, units, onChange, onValidityChange, externalErrors, flagged, onlyFields, disabled = false, collapsible = false, openSections = 'all', handle, onFieldEdit, beforeField, afterField }: ParamFormProps) {
   const unitsRef = useRef(units);
   const exact = useRef<ExactValues>({});
   const parsed = useRef<Record<string, number | undefined>>({});
@@ -170,6 +186,34 @@ export function ParamForm({ decls, initialValues, units, onChange, onValidityCha
     if (externalErrors?.[name] && !editedSinceExternal[name]) setEdited((s) => ({ ...s, [name]: true }));
   };
 
+  // Values written from outside go in like a unit switch: every text first with the watcher muted,
+  // each keeping its exact millimetres, then one validation and one report.
+  useImperativeHandle(handle, () => ({
+    setValues(values: Partial<ParamValues>) {
+      muted.current = true;
+      try {
+        decls.forEach((d, i) => {
+          if (!Object.prototype.hasOwnProperty.call(values, d.name)) return;
+          const v = values[d.name];
+          const k = keyOf(i);
+          if (d.type === 'number') {
+            if (typeof v !== 'number' || !Number.isFinite(v)) return;
+            const text = formatParamInput(d, v, unitsRef.current);
+            exact.current[k] = { text, value: v };
+            parsed.current[k] = v;
+            setValue(k, text, { shouldDirty: true });
+          } else if (v !== undefined) setValue(k, v as string | boolean, { shouldDirty: true });
+          else return;
+          markEdited(d.name);
+        });
+      } finally {
+        muted.current = false;
+      }
+      void trigger();
+      report(getValues());
+    },
+  }));
+
   // A field outside `onlyFields` still shows when it carries a message: it cannot be fixed unseen.
   const visible = useMemo(() => (onlyFields ? [...onlyFields, ...Object.keys(externalErrors ?? {})] : undefined), [onlyFields, externalErrors]);
   const sections = useMemo(() => groupDecls(decls, visible), [decls, visible]);
@@ -187,10 +231,25 @@ export function ParamForm({ decls, initialValues, units, onChange, onValidityCha
         >
           {section.items.map(({ decl, index }) => {
             const external = editedSinceExternal[decl.name] ? undefined : externalErrors?.[decl.name];
-            const common = { control, name: keyOf(index), external, flag: flagged?.[decl.name], disabled, onEdit: () => markEdited(decl.name) };
-            if (decl.type === 'number') return <NumberField key={decl.name} decl={decl} units={units} {...common} />;
-            if (decl.type === 'choice') return <ChoiceField key={decl.name} decl={decl} {...common} />;
-            return <BoolField key={decl.name} decl={decl} {...common} />;
+            const common = {
+              control,
+              name: keyOf(index),
+              external,
+              flag: flagged?.[decl.name],
+              disabled,
+              onEdit: () => {
+                markEdited(decl.name);
+                onFieldEdit?.(decl.name);
+              },
+            };
+            const field = decl.type === 'number' ? <NumberField decl={decl} units={units} {...common} /> : decl.type === 'choice' ? <ChoiceField decl={decl} {...common} /> : <BoolField decl={decl} {...common} />;
+            return (
+              <Fragment key={decl.name}>
+                {beforeField?.[decl.name] ?? null}
+                {field}
+                {afterField?.[decl.name] ?? null}
+              </Fragment>
+            );
           })}
         </FormSection>
       ))}

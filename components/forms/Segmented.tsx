@@ -50,6 +50,8 @@ const styles = StyleSheet.create({
     flexDirection: 'row',
     flexWrap: 'wrap',
     alignSelf: 'flex-start',
+    // A long label wraps inside its option rather than running past the group's container.
+    maxWidth: '100%',
     borderWidth: 1,
     borderColor: colors.line,
     borderRadius: radius.sm,
@@ -58,7 +60,7 @@ const styles = StyleSheet.create({
     gap: 2,
   },
   invalid: { borderColor: colors.danger },
-  option: { paddingHorizontal: space.md, paddingVertical: 6, borderRadius: 3, minHeight: 32, justifyContent: 'center' },
+  option: { paddingHorizontal: space.md, paddingVertical: 6, borderRadius: 3, minHeight: 32, justifyContent: 'center', flexShrink: 1 },
   hovered: { backgroundColor: colors.paper },
   // Selected reads by weight and a dark fill, not only by hue.
   selected: { backgroundColor: colors.pineDark },

@@ -4,18 +4,22 @@ import { ActivityIndicator, Pressable, ScrollView, StyleSheet, Text, View, useWi
 import { modelToLayerPaths, previewFrame } from '../../shared/geometry/paths';
 import { runGenerator } from '../../shared/generators';
 import type { GeneratorDef, GeneratorResult } from '../../shared/generators/types';
+import { fitNotesDeviceName } from '../../shared/generators/catalogDevice';
+import { fitNotesFromParams } from '../../shared/generators/fitNotes';
 import { defaultParams, type FieldText, type ParamValues } from '../../shared/params';
 import { textInUnits } from '../../shared/units';
 import { SafetyNotes } from '../SafetyNotes';
 import { ApiError } from '../api/client';
 import { Drawing } from '../drawing/Drawing';
-import { ParamForm } from '../forms/ParamForm';
+import { SuggestedClearance } from '../cuts/SuggestedClearance';
+import { ParamForm, type ParamFormHandle } from '../forms/ParamForm';
 import { Segmented } from '../forms/Segmented';
 import { UnitsToggle } from '../forms/UnitsToggle';
 import { useDisplayUnits } from '../forms/useDisplayUnits';
 import { colors, fonts, radius, space, theme, useBreakpoint } from '../ui';
 import { FitReport, flaggedFields } from './FitReport';
 import { cautionsForGenerator } from './cautions';
+import { DevicePicker, useDeviceChoice } from './DeviceFill';
 
 const FACE_OPTIONS: { value: 'top' | 'underside'; label: string }[] = [
   { value: 'top', label: 'Top' },
@@ -36,8 +40,19 @@ export interface GeneratorWorkbenchProps {
    * report calls it with the last valid params and their result; throw an ApiError to show its
    * message, and its `fields` inline in the form. Without it no save button is shown.
    */
-  onSave?: (params: ParamValues, result: GeneratorResult) => void | Promise<void>;
+  onSave?: (params: ParamValues, result: GeneratorResult, context: WorkbenchSaveContext) => void | Promise<void>;
   saveLabel?: string;
+  /**
+   * The catalog device the starting values were made for (a saved revision's fit notes name); with a
+   * signed-in shop it starts out chosen in "Fill from a saved device" when the catalog has it.
+   */
+  initialDevice?: string;
+}
+
+/** What the workbench knows beside the params when saving. */
+export interface WorkbenchSaveContext {
+  /** The device chosen from the shop's catalog, as fit notes should name it ("… (edited)" once typed over). */
+  deviceName?: string;
 }
 
 type Preview =
@@ -58,7 +73,7 @@ function preview(id: string, values: Partial<ParamValues>): Preview {
  * A generator's form beside its live drawing and fit report. The preview is computed here, with the
  * same shared generator code the server runs, so typing never waits on the network.
  */
-export function GeneratorWorkbench({ generator, initialParams, onlyFields, onSave, saveLabel = 'Save as new revision' }: GeneratorWorkbenchProps) {
+export function GeneratorWorkbench({ generator, initialParams, onlyFields, onSave, saveLabel = 'Save as new revision', initialDevice }: GeneratorWorkbenchProps) {
   const { isWide, isDesktop } = useBreakpoint();
   const { height: windowHeight } = useWindowDimensions();
   // On wide screens the preview column is one screen tall and stays put while the form scrolls.
@@ -71,6 +86,8 @@ export function GeneratorWorkbench({ generator, initialParams, onlyFields, onSav
   const [saveState, setSaveState] = useState<{ busy: boolean; error?: string; fields?: Record<string, string>; savedAt?: number }>({ busy: false });
   const timer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
   useEffect(() => () => clearTimeout(timer.current), []);
+  const formHandle = useRef<ParamFormHandle | null>(null);
+  const device = useDeviceChoice(generator, formHandle, startValues, initialDevice);
 
   const onValues = (values: ParamValues) => {
     clearTimeout(timer.current);
@@ -99,7 +116,7 @@ export function GeneratorWorkbench({ generator, initialParams, onlyFields, onSav
     if (!onSave || !current.ok || stale) return;
     setSaveState({ busy: true });
     try {
-      await onSave(current.params, current.result);
+      await onSave(current.params, current.result, { deviceName: device.chosen ? fitNotesDeviceName(device.chosen) : undefined });
       setSaveState({ busy: false, savedAt: Date.now() });
     } catch (e) {
       const fields = e instanceof ApiError ? e.fields : undefined;
@@ -176,6 +193,30 @@ export function GeneratorWorkbench({ generator, initialParams, onlyFields, onSav
     </View>
   );
 
+  // "Fill from a saved device" sits above the first device field shown; the fit history's
+  // suggestion beside the clearance it is for, or in the picker when that field is not shown.
+  const shownField = (name: string | undefined) => !!name && generator.params.some((d) => d.name === name) && (!onlyFields || onlyFields.includes(name));
+  const firstDeviceField = (generator.deviceParams ?? []).find((k) => shownField(k));
+  const clearanceParam = shownField(generator.suggestedClearanceParam) ? generator.suggestedClearanceParam : undefined;
+  const material = shown ? fitNotesFromParams(generator.id, shown.params).stock?.material : undefined;
+  const clearanceNow = current.ok && clearanceParam && typeof current.params[clearanceParam] === 'number' ? (current.params[clearanceParam] as number) : undefined;
+  const suggestion = device.chosen ? (
+    <SuggestedClearance
+      shopId={device.shopId}
+      device={device.chosen.name}
+      material={material}
+      units={units}
+      sayWhenNone
+      testID="workbench-suggested-clearance"
+      currentMm={clearanceNow}
+      onUse={clearanceParam ? (mm) => formHandle.current?.setValues({ [clearanceParam]: mm }) : undefined}
+    />
+  ) : null;
+  const picker = firstDeviceField && device.available ? <DevicePicker choice={device} units={units}>{clearanceParam ? null : suggestion}</DevicePicker> : null;
+  const beforeField = picker && firstDeviceField ? { [firstDeviceField]: picker } : undefined;
+  // Indented like the fields (their flag border and padding), so it reads as the clearance field's note.
+  const afterField = suggestion && clearanceParam ? { [clearanceParam]: <View style={styles.fieldNote}>{suggestion}</View> } : undefined;
+
   const form = (
     <View style={theme.card}>
       <View style={styles.cardHead}>
@@ -196,6 +237,10 @@ export function GeneratorWorkbench({ generator, initialParams, onlyFields, onSav
         onlyFields={onlyFields}
         collapsible
         openSections={isWide ? 'all' : 'first'}
+        handle={formHandle}
+        onFieldEdit={device.onFieldEdit}
+        beforeField={beforeField}
+        afterField={afterField}
       />
     </View>
   );
@@ -290,4 +335,5 @@ const styles = StyleSheet.create({
   saveDisabled: { opacity: 0.5 },
   saveText: { fontFamily: fonts.bold, fontSize: 15, color: colors.paper },
   small: { fontSize: 13 },
+  fieldNote: { paddingLeft: 3 + space.sm },
 });

@@ -5,7 +5,8 @@ import { ApiError, api } from '../api/client';
 import { useCreateDesign, type SavedRevision } from '../api/designs';
 import { canEdit, useCurrentShop } from '../library/shopAccess';
 import { colors, radius, space, theme, type } from '../ui';
-import type { GeneratorDef } from '../../shared/generators/types';
+import type { WorkbenchSaveContext } from './GeneratorWorkbench';
+import type { GeneratorDef, GeneratorResult } from '../../shared/generators/types';
 import { fitNotesFromParams } from '../../shared/generators/fitNotes';
 import type { ParamValues } from '../../shared/params';
 import type { FitNotes } from '../../shared/schemas/library';
@@ -30,13 +31,15 @@ export function useSaveToLibrary(generator: GeneratorDef, target: SaveTarget) {
   const [error, setError] = useState<string | null>(null);
   const allowed = !!shop && canEdit(shop.role);
 
-  async function save(params: ParamValues) {
+  async function save(params: ParamValues, _result?: GeneratorResult, context: WorkbenchSaveContext = {}) {
     setError(null);
     if (!target.designId && !title.trim()) throw new ApiError(400, 'invalid_input', 'Give the new design a title');
     if (!message.trim()) throw new ApiError(400, 'invalid_input', 'Say what changed in this revision');
     try {
       const designId = target.designId ?? (await createDesign.mutateAsync({ kind: generator.kind, title: title.trim() })).id;
-      const fitNotes = { ...(target.fitNotes ?? {}), ...fitNotesFromParams(generator.id, params) };
+      const fitNotes: FitNotes = { ...(target.fitNotes ?? {}), ...fitNotesFromParams(generator.id, params) };
+      // The device chosen from the catalog is the one this revision fits, by name.
+      if (context.deviceName && fitNotes.device) fitNotes.device = { ...fitNotes.device, name: context.deviceName };
       const saved = await api<SavedRevision>(`/designs/${designId}/revisions`, {
         method: 'POST',
         json: { generatorId: generator.id, params, message: message.trim(), fitNotes },

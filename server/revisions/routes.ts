@@ -3,6 +3,7 @@ import { pipeline } from 'node:stream/promises';
 import multer from 'multer';
 import { sql } from 'kysely';
 import { getGenerator, runGenerator } from '../../shared/generators';
+import { deviceParamValues } from '../../shared/generators/catalogDevice';
 import { ChangeStatus, DownloadQuery, TemplateQuery, InspectUploadFields, Regenerate, UploadRevisionFields } from '../../shared/schemas/library';
 import { logActivity } from '../designs/repository';
 import { badRequest, HttpError, notFound } from '../http/errors';
@@ -218,7 +219,7 @@ export function revisionRoutes(api: ApiRouter): void {
     if (body.deviceId) {
       const d = await db.selectFrom('devices').selectAll().where('id', '=', body.deviceId).where('shop_id', '=', shopId!).executeTakeFirst();
       if (!d) throw new HttpError(404, 'not_found', 'That device is not in this shop’s catalog');
-      device = deviceParamsFromCatalog(deviceKeys, d);
+      device = deviceParamValues(deviceKeys, { widthMm: d.width_mm, lengthMm: d.length_mm, thicknessMm: d.thickness_mm, caseAllowanceMm: d.case_allowance_mm });
       deviceName = d.name;
     } else {
       device = body.device!;
@@ -252,16 +253,4 @@ export function revisionRoutes(api: ApiRouter): void {
     });
     res.status(201).json({ ...saved, fromRevisionId: rev.id });
   });
-}
-
-/** Map a catalog device onto a generator's device parameters by their names. */
-function deviceParamsFromCatalog(keys: string[], d: { width_mm: number; length_mm: number; thickness_mm: number; case_allowance_mm: number }) {
-  const out: Record<string, number> = {};
-  for (const k of keys) {
-    if (/case/i.test(k)) out[k] = d.case_allowance_mm;
-    else if (/width/i.test(k)) out[k] = d.width_mm;
-    else if (/length/i.test(k)) out[k] = d.length_mm;
-    else if (/thick/i.test(k)) out[k] = d.thickness_mm;
-  }
-  return out;
 }

@@ -319,6 +319,7 @@ export const chargerInsert: GeneratorDef = {
     'A plate that drops into an opening in a table top: a pocket on top for a phone, a recess underneath for a wireless charger pad, and a cord channel to one edge. Underside work is also given mirrored, for cutting after turning the plate over about its long axis on the alignment marks.',
   params: CHARGER_INSERT_PARAMS,
   deviceParams: ['deviceWidth', 'deviceLength', 'deviceThickness', 'caseAllowance'],
+  suggestedClearanceParam: 'pocketClearance',
   check,
   generate,
 };

@@ -56,6 +56,11 @@ export interface GeneratorDef {
   params: ParamDecl[];
   /** The params a "regenerate for another device" may change. */
   deviceParams?: string[];
+  /**
+   * The clearance param the shop's fit history (test cuts per device and material) suggests a
+   * value for: the one fit notes record as `clearancePerSide` (shared/generators/fitNotes.ts).
+   */
+  suggestedClearanceParam?: string;
   /** Inconsistent combinations → field-level messages (runGenerator refuses them). */
   check?(p: ParamValues): FieldMessage[];
   generate(p: ParamValues): GeneratorResult;

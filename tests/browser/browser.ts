@@ -66,3 +66,34 @@ export async function bringIntoView(locator: Locator): Promise<void> {
     }
   }
 }
+
+/** A JSON call from the page with its session and the CSRF header; throws on a non-2xx answer. */
+export async function pageApi<T>(page: Page, path: string, init: { method?: string; json?: unknown } = {}): Promise<T> {
+  const out = await page.evaluate(
+    async ({ path, init }) => {
+      const r = await fetch('/api' + path, {
+        method: init.method ?? 'GET',
+        credentials: 'include',
+        headers: { Accept: 'application/json', 'X-Jigwright-CSRF': '1', ...(init.json !== undefined ? { 'Content-Type': 'application/json' } : {}) },
+        body: init.json !== undefined ? JSON.stringify(init.json) : undefined,
+      });
+      return { status: r.status, body: await r.text() };
+    },
+    { path, init },
+  );
+  if (out.status >= 300) throw new Error(`${init.method ?? 'GET'} ${path}: ${out.status} ${out.body}`);
+  return JSON.parse(out.body) as T;
+}
+
+/** Signs in from the page itself (fetch with credentials), so the cookie is the page's own; answers the person's shops. */
+export async function signInOnPage(page: Page, who: { email: string; password: string }): Promise<{ id: string; name: string; role: string }[]> {
+  await page.goto(baseUrl() + '/help/safety');
+  const body = { email: who.email, password: who.password };
+  const status = await page.evaluate(async (body) => {
+    await fetch('/api/auth/sign-out', { method: 'POST', credentials: 'include', headers: { 'X-Jigwright-CSRF': '1' } }).catch(() => null);
+    const r = await fetch('/api/auth/sign-in', { method: 'POST', credentials: 'include', headers: { 'Content-Type': 'application/json', 'X-Jigwright-CSRF': '1' }, body: JSON.stringify(body) });
+    return r.status;
+  }, body);
+  if (status !== 200) throw new Error(`sign-in as ${who.email} answered ${status}`);
+  return (await pageApi<{ shops: { id: string; name: string; role: string }[] }>(page, '/me')).shops;
+}

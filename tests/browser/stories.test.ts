@@ -8,7 +8,7 @@ import DxfParserModule from 'dxf-parser';
 import type { BrowserContext, Locator, Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { dxfFile, line } from '../support/dxf';
-import { PHONE, WIDE, baseUrl, bringIntoView, openBrowser, resize, screenshot } from './browser';
+import { PHONE, WIDE, baseUrl, bringIntoView, openBrowser, pageApi, resize, screenshot, signInOnPage } from './browser';
 
 const DxfParser = ((DxfParserModule as any).default ?? DxfParserModule) as new () => { parseSync(t: string): any };
 
@@ -17,40 +17,8 @@ const LEAD = { email: 'lead@otterbrook.example', password: 'otterbrook-lead' };
 const VIEWER = { email: 'viewer@larchmere.example', password: 'larchmere-viewer' };
 
 type Browser = Awaited<ReturnType<typeof openBrowser>>;
-type Shop = { id: string; name: string; role: string };
 
 const shown = (l: Locator) => l.filter({ visible: true });
-
-/** Signs in from the page itself (fetch with credentials), so the cookie is the page's own. */
-async function signIn(page: Page, who: { email: string; password: string }): Promise<Shop[]> {
-  await page.goto(baseUrl() + '/help/safety');
-  const status = await page.evaluate(async (body) => {
-    await fetch('/api/auth/sign-out', { method: 'POST', credentials: 'include', headers: { 'X-Jigwright-CSRF': '1' } }).catch(() => null);
-    const r = await fetch('/api/auth/sign-in', { method: 'POST', credentials: 'include', headers: { 'Content-Type': 'application/json', 'X-Jigwright-CSRF': '1' }, body: JSON.stringify(body) });
-    return r.status;
-  }, who);
-  expect(status).toBe(200);
-  const me = await pageApi<{ shops: Shop[] }>(page, '/me');
-  return me.shops;
-}
-
-/** A JSON call from the page with its session and the CSRF header. */
-async function pageApi<T>(page: Page, path: string, init: { method?: string; json?: unknown } = {}): Promise<T> {
-  const out = await page.evaluate(
-    async ({ path, init }) => {
-      const r = await fetch('/api' + path, {
-        method: init.method ?? 'GET',
-        credentials: 'include',
-        headers: { Accept: 'application/json', 'X-Jigwright-CSRF': '1', ...(init.json !== undefined ? { 'Content-Type': 'application/json' } : {}) },
-        body: init.json !== undefined ? JSON.stringify(init.json) : undefined,
-      });
-      return { status: r.status, body: await r.text() };
-    },
-    { path, init },
-  );
-  if (out.status >= 300) throw new Error(`${init.method ?? 'GET'} ${path}: ${out.status} ${out.body}`);
-  return JSON.parse(out.body) as T;
-}
 
 async function findDesign(page: Page, shopId: string, title: string) {
   const list = await pageApi<{ items: { id: string; title: string; latestRevisionId: string | null; latestRevision: number }[] }>(page, `/shops/${shopId}/designs?q=${encodeURIComponent(title)}`);
@@ -114,7 +82,7 @@ describe('revision, compare and cut-log stories', () => {
 
   it('S1: the editor regenerates the bedside plate for the rugged-case phone and reads the pocket-width delta', async () => {
     const { page } = b;
-    const shops = await signIn(page, EDITOR);
+    const shops = await signInOnPage(page, EDITOR);
     const larchmere = shops.find((s) => s.name === 'Larchmere Workshop')!;
     await useShop(page, larchmere.id);
     const plate = await findDesign(page, larchmere.id, 'Bedside charger plate');
@@ -191,7 +159,7 @@ describe('revision, compare and cut-log stories', () => {
 
   it('S1b: the editor records a cut and sees the fit history with the suggested clearance', async () => {
     const { page } = b;
-    const shops = await signIn(page, EDITOR);
+    const shops = await signInOnPage(page, EDITOR);
     const larchmere = shops.find((s) => s.name === 'Larchmere Workshop')!;
     await useShop(page, larchmere.id);
     const plate = await findDesign(page, larchmere.id, 'Bedside charger plate');
@@ -220,7 +188,7 @@ describe('revision, compare and cut-log stories', () => {
 
   it('S2: the Otterbrook lead changes a parameter of the forked taper sled and sees r2 of the fork', async () => {
     const { page } = b;
-    const shops = await signIn(page, LEAD);
+    const shops = await signInOnPage(page, LEAD);
     const otter = shops.find((s) => s.name === 'Otterbrook Makerspace')!;
     await useShop(page, otter.id);
     const fork = await findDesign(page, otter.id, 'Leg taper sled');
@@ -256,7 +224,7 @@ describe('revision, compare and cut-log stories', () => {
 
   it('S3: the viewer downloads a DXF and it reads back in millimetres at the summary’s size', async () => {
     const { page } = b;
-    const shops = await signIn(page, VIEWER);
+    const shops = await signInOnPage(page, VIEWER);
     const larchmere = shops.find((s) => s.name === 'Larchmere Workshop')!;
     expect(larchmere.role).toBe('viewer');
     await useShop(page, larchmere.id);
@@ -280,7 +248,7 @@ describe('revision, compare and cut-log stories', () => {
 
   it('compares two uploaded 5,000-line revisions without freezing the page', async () => {
     const { page } = b;
-    const shops = await signIn(page, EDITOR);
+    const shops = await signInOnPage(page, EDITOR);
     const larchmere = shops.find((s) => s.name === 'Larchmere Workshop')!;
     await useShop(page, larchmere.id);
     const design = await pageApi<{ id: string }>(page, `/shops/${larchmere.id}/designs`, { method: 'POST', json: { kind: 'template', title: `Dense grid ${Date.now().toString(36)}`, tags: [], material: '' } });

@@ -3,6 +3,10 @@ import makerjs from 'makerjs';
 import { describe, expect, it } from 'vitest';
 import { GENERATORS, getGenerator, runGenerator, type GeneratorResult } from '../../shared/generators';
 import { CHARGER_INSERT_PARAMS } from '../../shared/generators/chargerInsert';
+import { DEVICE_NAME_MAX, EDITED_SUFFIX, deviceParamValues, fitNotesDeviceName } from '../../shared/generators/catalogDevice';
+import { fitNotesFromParams } from '../../shared/generators/fitNotes';
+import { FitNotes } from '../../shared/schemas/library';
+import { DEMO_DEVICES } from '../../db/seed';
 import { defaultParams, paramsSchema, type ParamValues } from '../../shared/params';
 import { LAYERS } from '../../shared/schemas/geometry';
 import { textInUnits } from '../../shared/units';
@@ -90,6 +94,42 @@ describe('generator registry', () => {
     const g = getGenerator('charger-insert')!;
     expect(g.deviceParams).toEqual(['deviceWidth', 'deviceLength', 'deviceThickness', 'caseAllowance']);
     for (const k of g.deviceParams!) expect(g.params.map((p) => p.name)).toContain(k);
+  });
+
+  it('fills the device parameters from a catalog device, each from its own dimension', () => {
+    // Invented demo device (db/seed.ts): 77.6 × 161.2 × 8.4 mm, case 1.6 mm per side.
+    const d = DEMO_DEVICES[1];
+    const size = { widthMm: d.width_mm, lengthMm: d.length_mm, thicknessMm: d.thickness_mm, caseAllowanceMm: d.case_allowance_mm };
+    const g = getGenerator('charger-insert')!;
+    expect(deviceParamValues(g.deviceParams!, size)).toEqual({ deviceWidth: d.width_mm, deviceLength: d.length_mm, deviceThickness: d.thickness_mm, caseAllowance: d.case_allowance_mm });
+    // Names that are no dimension are left out rather than guessed.
+    expect(deviceParamValues(['deviceColour', 'deviceWidth'], size)).toEqual({ deviceWidth: d.width_mm });
+    // The filled values draw: pocket width = device width + 2 · (case allowance + pocket clearance), per the generator.
+    const { result } = gen('charger-insert', deviceParamValues(g.deviceParams!, size));
+    expect(val(result, 'pocketWidth')).toBeCloseTo(d.width_mm + 2 * (d.case_allowance_mm + (defaultParams(CHARGER_INSERT_PARAMS).pocketClearance as number)), 9);
+  });
+
+  it('the clearance the fit history suggests is the one fit notes record per side', () => {
+    for (const g of GENERATORS.filter((x) => x.suggestedClearanceParam)) {
+      const decl = g.params.find((p) => p.name === g.suggestedClearanceParam);
+      expect(decl?.type, g.id).toBe('number');
+      // A value away from the default, so a fit note read off another param cannot pass by chance.
+      const p = gen(g.id, { [g.suggestedClearanceParam!]: 1.35 }).params;
+      expect(fitNotesFromParams(g.id, p).clearancePerSide, g.id).toBe(1.35);
+    }
+    expect(getGenerator('charger-insert')!.suggestedClearanceParam).toBe('pocketClearance');
+  });
+
+  it('names a chosen device in fit notes, marked when its sizes were typed over, within the schema', () => {
+    expect(fitNotesDeviceName({ name: 'Demo phone S', edited: false })).toBe('Demo phone S');
+    expect(fitNotesDeviceName({ name: 'Demo phone S', edited: true })).toBe('Demo phone S (edited)');
+    const long = 'x'.repeat(DEVICE_NAME_MAX);
+    const named = fitNotesDeviceName({ name: long, edited: true });
+    expect(named.length).toBe(DEVICE_NAME_MAX);
+    expect(named.endsWith(EDITED_SUFFIX)).toBe(true);
+    const notes = { device: { name: named, width: 70, length: 150, thickness: 8, cased: false } };
+    expect(FitNotes.safeParse(notes).success).toBe(true);
+    expect(FitNotes.safeParse({ device: { ...notes.device, name: long + EDITED_SUFFIX } }).success).toBe(false);
   });
 
   it('returns field-level messages for bad and inconsistent params', () => {
