@@ -2,6 +2,7 @@ import { Link, useLocalSearchParams } from 'expo-router';
 import { Text } from 'react-native';
 import { CalculatorWorkbench } from '@/components/calculators/CalculatorWorkbench';
 import { AppFrame } from '@/components/layout/AppFrame';
+import { NothingHere } from '@/components/layout/NothingHere';
 import { theme } from '@/components/ui';
 import { getCalculator } from '@/shared/calculators';
 
@@ -9,14 +10,7 @@ export default function CalculatorScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
   const calculator = typeof id === 'string' ? getCalculator(id) : undefined;
   if (!calculator) {
-    return (
-      <AppFrame title="No such calculator">
-        <Text style={theme.body}>There is no calculator called “{String(id)}”.</Text>
-        <Link href="/calculators" style={theme.link}>
-          See all calculators
-        </Link>
-      </AppFrame>
-    );
+    return <NothingHere title="No such calculator" message={`There is no calculator called “${String(id)}”.`} back={{ href: '/calculators', label: 'See all calculators' }} />;
   }
   return (
     <AppFrame title={calculator.title}>

@@ -2,6 +2,7 @@ import { Link, useLocalSearchParams } from 'expo-router';
 import { ActivityIndicator, Text } from 'react-native';
 import { useRevision } from '@/components/api/revisions';
 import { AppFrame } from '@/components/layout/AppFrame';
+import { NothingHere } from '@/components/layout/NothingHere';
 import { GeneratorWorkbench } from '@/components/generators/GeneratorWorkbench';
 import { useSaveToLibrary } from '@/components/generators/SaveToLibrary';
 import { colors, theme } from '@/components/ui';
@@ -15,14 +16,7 @@ export default function GeneratorScreen() {
   const generator = typeof id === 'string' ? getGenerator(id) : undefined;
   const from = useRevision(typeof revision === 'string' ? revision : undefined);
   if (!generator) {
-    return (
-      <AppFrame title="No such generator">
-        <Text style={theme.body}>There is no generator called “{String(id)}”.</Text>
-        <Link href="/generators" style={theme.link}>
-          See all generators
-        </Link>
-      </AppFrame>
-    );
+    return <NothingHere title="No such generator" message={`There is no generator called “${String(id)}”.`} back={{ href: '/generators', label: 'See all generators' }} />;
   }
   if (revision && from.isLoading) {
     return (

@@ -104,25 +104,21 @@ export function PanZoomDrawing(props: Omit<DrawingProps, 'viewBox'> & { label?: 
     };
     const onFocus = () => setFocused(true);
     const onBlur = () => setFocused(false);
-    el.addEventListener('wheel', onWheel, { passive: false });
-    el.addEventListener('pointerdown', onDown);
-    el.addEventListener('pointermove', onMove);
-    el.addEventListener('pointerup', onUp);
-    el.addEventListener('pointercancel', onUp);
-    el.addEventListener('keydown', onKey);
-    el.addEventListener('focus', onFocus);
-    el.addEventListener('blur', onBlur);
+    const listeners: [string, EventListener, AddEventListenerOptions?][] = [
+      ['wheel', onWheel as EventListener, { passive: false }],
+      ['pointerdown', onDown as EventListener],
+      ['pointermove', onMove as EventListener],
+      ['pointerup', onUp as EventListener],
+      ['pointercancel', onUp as EventListener],
+      ['keydown', onKey as EventListener],
+      ['focus', onFocus],
+      ['blur', onBlur],
+    ];
+    for (const [type, fn, opts] of listeners) el.addEventListener(type, fn, opts);
     const svg = canvas();
     if (svg) svg.style.touchAction = 'none';
     return () => {
-      el.removeEventListener('wheel', onWheel);
-      el.removeEventListener('pointerdown', onDown);
-      el.removeEventListener('pointermove', onMove);
-      el.removeEventListener('pointerup', onUp);
-      el.removeEventListener('pointercancel', onUp);
-      el.removeEventListener('keydown', onKey);
-      el.removeEventListener('focus', onFocus);
-      el.removeEventListener('blur', onBlur);
+      for (const [type, fn] of listeners) el.removeEventListener(type, fn);
     };
   }, [apply, width]);
 

@@ -47,22 +47,22 @@ export function revisionRoutes(api: ApiRouter): void {
   const editorOfRevision = { kind: 'shop' as const, role: 'editor' as const, shop: shopOfRevision };
   const editorOfDesign = { kind: 'shop' as const, role: 'editor' as const, shop: shopOfDesign };
 
-  function readUpload(req: Request) {
+  /** The attached file, read as a drawing in `units` when it does not say its own; refusals as 4xx. */
+  function readDrawing(req: Request, units: Parameters<typeof importUpload>[1]) {
     if (!req.file) throw badRequest('Attach a DXF or SVG file in the "file" field');
     if (req.file.size === 0) throw new HttpError(400, 'file_empty', 'The file is empty');
-    return req.file.buffer;
+    const body = req.file.buffer;
+    try {
+      return { body, imported: importUpload(body, units) };
+    } catch (e) {
+      uploadError(e);
+    }
   }
 
   // Check a file and show what Jigwright read from it, before anything is saved.
   api.route('post', '/designs/:designId/uploads/inspect', editorOfDesign, upload, async (req, res) => {
     const fields = InspectUploadFields.parse(req.body ?? {});
-    const body = readUpload(req);
-    let imported;
-    try {
-      imported = importUpload(body, fields.units);
-    } catch (e) {
-      uploadError(e);
-    }
+    const { imported } = readDrawing(req, fields.units);
     const { modelToSvg } = await import('../../files/svg/render');
     res.json({
       format: imported.format,
@@ -78,13 +78,7 @@ export function revisionRoutes(api: ApiRouter): void {
 
   api.route('post', '/designs/:designId/revisions/upload', editorOfDesign, upload, async (req, res) => {
     const fields = UploadRevisionFields.parse(req.body ?? {});
-    const body = readUpload(req);
-    let imported;
-    try {
-      imported = importUpload(body, fields.units);
-    } catch (e) {
-      uploadError(e);
-    }
+    const { body, imported } = readDrawing(req, fields.units);
     const designId = req.params.designId as string;
     const design = await db.selectFrom('designs').select('title').where('id', '=', designId).executeTakeFirstOrThrow();
     const saved = await saveRevision(api.deps, designId, {

@@ -39,6 +39,18 @@ describe('generator and calculator screens', () => {
       });
       afterAll(async () => b?.close());
 
+      it('an address naming no generator or calculator says so and leads back to the list', async () => {
+        const { page } = b;
+        for (const [kind, list] of [['generator', 'Charger insert plate'], ['calculator', 'Compound miter for a splayed box']] as const) {
+          await page.goto(`${baseUrl()}/${kind}s/no-such-${kind}`);
+          await page.getByText(`There is no ${kind} called “no-such-${kind}”.`).waitFor({ timeout: 30000 });
+          await screenshot(page, `no-such-${kind}-${label}`);
+          await page.getByRole('link', { name: `See all ${kind}s` }).click();
+          await page.waitForURL(`**/${kind}s`);
+          await page.getByRole('link', { name: list }).first().waitFor();
+        }
+      });
+
       it('charger insert: live preview, skin warning with flagged fields, bad input, inches with a fraction', async () => {
         const { page } = b;
         await page.goto(baseUrl() + '/generators');
