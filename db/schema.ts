@@ -176,6 +176,13 @@ export interface ArchiveImportsTable {
   activity: number;
 }
 
+export interface RateLimitsTable {
+  /** `<limiter>:<client key>`, e.g. "sign-in-per-account:account:wren@birchfold.example". */
+  key: string;
+  hits: number;
+  reset_at: Date;
+}
+
 export interface Database {
   users: UsersTable;
   sessions: SessionsTable;
@@ -191,6 +198,7 @@ export interface Database {
   chargers: ChargersTable;
   cut_logs: CutLogsTable;
   archive_imports: ArchiveImportsTable;
+  rate_limits: RateLimitsTable;
 }
 
 export type User = Selectable<UsersTable>;

@@ -1,9 +1,11 @@
-// Work the running server does by itself now and then: spent sign-in rows go (server/auth/cleanup),
+// Work the running server does by itself now and then: spent sign-in rows and ended rate-limit
+// windows go (server/auth/cleanup, server/auth/rateStore),
 // and stored objects no revision refers to are swept after their grace time, as `npm run sweep`
 // does by hand (server/revisions/sweep). A failure is logged and tried again next time; it never
 // stops the server. The timer does not keep the process alive.
 import type { Deps } from './deps';
 import { removeSpentAuthRows } from './auth/cleanup';
+import { removeEndedRateWindows } from './auth/rateStore';
 import { sweepOrphans } from './revisions/sweep';
 
 export interface HousekeepingOptions {
@@ -27,8 +29,9 @@ export function startHousekeeping(deps: Pick<Deps, 'db' | 'objects' | 'log'>, { 
     rounds++;
     try {
       const spent = await removeSpentAuthRows(deps.db);
+      const rateWindows = await removeEndedRateWindows(deps.db);
       const swept = await sweepOrphans(deps, { graceSeconds });
-      if (spent.sessions || spent.resets || swept.removed.length) deps.log.info({ ...spent, orphanObjects: swept.removed.length }, 'housekeeping');
+      if (spent.sessions || spent.resets || rateWindows || swept.removed.length) deps.log.info({ ...spent, rateWindows, orphanObjects: swept.removed.length }, 'housekeeping');
     } catch (err) {
       deps.log.warn({ err }, 'housekeeping failed; it runs again later');
     }

@@ -39,7 +39,7 @@ async function signedIn(deps: Deps, res: Response, user: { id: string; email: st
 export function authRoutes(api: ApiRouter): void {
   const deps = api.deps;
   const { db, config, mailer, log } = deps;
-  const limits = authLimiters(config);
+  const limits = authLimiters(config, api.deps.db);
 
   api.route('post', '/auth/sign-up', { kind: 'public' }, limits.signUp, async (req, res) => {
     const body = SignUp.parse(req.body);

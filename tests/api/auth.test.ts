@@ -339,6 +339,48 @@ describe('rate limits', () => {
     }
   });
 
+  it('counts in the database: a second API process on the same database sees the same count, and a restart keeps it', async () => {
+    const limited = await createTestContext({ RATE_LIMIT_DISABLED: 'false' });
+    try {
+      const { createApp } = await import('../../server/app');
+      const supertest = (await import('supertest')).default;
+      // Two processes behind one load balancer: two apps, one database.
+      const other = supertest(createApp(limited.deps).app);
+      const p = await insertPerson(limited.db);
+      const statuses: number[] = [];
+      for (let i = 0; i < 10; i++) statuses.push((await (i % 2 ? other : limited.http).post('/api/auth/sign-in').send({ email: p.email, password: 'guess-number-' + i })).status);
+      expect(statuses.every((s) => s === 401)).toBe(true);
+      // The eleventh try goes to a third, freshly started app: still counted.
+      const restarted = supertest(createApp(limited.deps).app);
+      const r = await restarted.post('/api/auth/sign-in').send({ email: p.email, password: p.password });
+      expect(r.status).toBe(429);
+      expect(r.headers['ratelimit-policy'] ?? r.headers['ratelimit']).toBeTruthy();
+      // The window ends: the count starts again, and a right password signs in.
+      await limited.db.updateTable('rate_limits').set({ reset_at: new Date(Date.now() - 1000) }).execute();
+      expect((await other.post('/api/auth/sign-in').send({ email: p.email, password: p.password })).status).toBe(200);
+      // Successful sign-ins are not counted (skipSuccessfulRequests): the new window's hit is taken back
+      // once the answer has gone, so it reaches 0 a moment after.
+      const hits = async () => (await limited.db.selectFrom('rate_limits').select('hits').where('key', 'like', 'sign-in-per-account:%').execute()).map((x) => x.hits);
+      await expect.poll(hits).toEqual([0]);
+    } finally {
+      await limited.close();
+    }
+  });
+
+  it('ten sign-in failures at the same moment are all counted, none lost', async () => {
+    const limited = await createTestContext({ RATE_LIMIT_DISABLED: 'false' });
+    try {
+      const p = await insertPerson(limited.db);
+      const statuses = await Promise.all(Array.from({ length: 10 }, (_, i) => limited.http.post('/api/auth/sign-in').send({ email: p.email, password: 'guess-number-' + i }).then((r) => r.status)));
+      expect(statuses.every((s) => s === 401)).toBe(true);
+      const row = await limited.db.selectFrom('rate_limits').select('hits').where('key', 'like', 'sign-in-per-account:%').executeTakeFirstOrThrow();
+      expect(row.hits).toBe(10);
+      expect((await limited.http.post('/api/auth/sign-in').send({ email: p.email, password: p.password })).status).toBe(429);
+    } finally {
+      await limited.close();
+    }
+  });
+
   it('limits reset requests and sign-ups per network', async () => {
     const limited = await createTestContext({ RATE_LIMIT_DISABLED: 'false' });
     try {
