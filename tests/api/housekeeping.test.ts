@@ -62,6 +62,21 @@ describe('spent sign-in rows', () => {
   });
 });
 
+describe('ended rate-limit windows', () => {
+  it('are removed; a window still running is kept', async () => {
+    const { removeEndedRateWindows } = await import('../../server/auth/rateStore');
+    await ctx.db
+      .insertInto('rate_limits')
+      .values([
+        { key: 'sign-up:198.51.100.7', hits: 4, reset_at: ago(1) }, // ended an hour ago (RFC 5737 documentation address)
+        { key: 'sign-up:198.51.100.8', hits: 2, reset_at: ago(-0.25) }, // ends in 15 minutes
+      ])
+      .execute();
+    expect(await removeEndedRateWindows(ctx.db)).toBe(1);
+    expect((await ctx.db.selectFrom('rate_limits').select('key').execute()).map((r) => r.key)).toEqual(['sign-up:198.51.100.8']);
+  });
+});
+
 async function liveSessionIds(userId: string) {
   return (await ctx.db.selectFrom('sessions').select('id').where('user_id', '=', userId).where('revoked_at', 'is', null).where('expires_at', '>', new Date()).execute()).map((r) => r.id);
 }
