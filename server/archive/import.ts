@@ -322,11 +322,11 @@ async function alreadyImported(db: Kysely<Database>, prior: ImportRecord): Promi
     copies,
   };
   const who = by ? by.name : 'someone who no longer has an account';
-  const since = copies ? ` It has been imported again as copies ${plural(copies, 'time')} since.` : '';
+  const since = copies ? ` Since then it has been imported again as copies ${copies === 1 ? 'once' : copies === 2 ? 'twice' : `${copies} times`}.` : '';
   return new HttpError(
     409,
     ALREADY_IMPORTED,
-    `This archive of ${prior.source_shop_name} (exported ${inWords(prior.exported_at)}) was already imported into this shop on ${inWords(prior.imported_at)} by ${who}, with ${plural(prior.designs, 'design')}.${since} Nothing was added this time. Import it again as copies only if you want a second set of its designs.`,
+    `This archive of ${prior.source_shop_name} (exported ${inWords(prior.exported_at)}) was already imported into this shop on ${inWords(prior.imported_at)} by ${who}, with ${plural(prior.designs, 'design')}.${since} Nothing was added this time. Import it again as copies only if you want ${copies ? 'another' : 'a second'} set of its designs.`,
     details,
   );
 }

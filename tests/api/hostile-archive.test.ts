@@ -335,7 +335,8 @@ describe('importing the same archive again', () => {
     const third = await importInto(shopId, exported);
     expect(third.status).toBe(409);
     expect(third.body.error.details.copies).toBe(1);
-    expect(third.body.error.message).toContain('imported again as copies 1 time since');
+    expect(third.body.error.message).toContain('Since then it has been imported again as copies once.');
+    expect(third.body.error.message).toContain('only if you want another set of its designs');
     expect(await designCount(shopId)).toBe(2 * m.counts.designs);
   }, 90_000);
 

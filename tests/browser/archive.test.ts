@@ -4,7 +4,7 @@
 // shop and its one design.
 import { afterEach, describe, expect, it } from 'vitest';
 import { uniqueEmail } from '../support/accounts';
-import { WIDE, baseUrl, bringIntoView, openBrowser, pageApi, screenshot } from './browser';
+import { PHONE, WIDE, baseUrl, bringIntoView, openBrowser, pageApi, screenshot } from './browser';
 
 type Browser = Awaited<ReturnType<typeof openBrowser>>;
 const open: Browser[] = [];
@@ -69,6 +69,17 @@ describe('shop archive import in the browser', () => {
     await page.getByRole('button', { name: 'Import hollin-lane-bench-library.tar.gz again as a second copy of every design in it' }).click();
     await page.getByText('Imported hollin-lane-bench-library.tar.gz again, as copies').waitFor({ timeout: 30000 });
     expect(await page.getByTestId('archive-already').count()).toBe(0);
+    expect(await designs()).toBe(3);
+
+    // On a phone: once more, and this time left as it is. The message now counts the copy.
+    await page.setViewportSize(PHONE);
+    await input.setInputFiles(archive);
+    await already.waitFor({ timeout: 30000 });
+    expect((await already.textContent()) ?? '').toContain('Nothing was added');
+    await bringIntoView(page.getByTestId('archive-leave'));
+    await screenshot(page, 'archive-already-imported-phone');
+    await page.getByTestId('archive-leave').click();
+    await expect.poll(() => page.getByTestId('archive-already').count()).toBe(0);
     expect(await designs()).toBe(3);
   });
 });
