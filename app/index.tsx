@@ -2,6 +2,7 @@ import { Link } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import { useHealth } from '@/components/api/health';
 import { AppFrame } from '@/components/layout/AppFrame';
+import { RecentWork } from '@/components/shop/RecentWork';
 import { YourShopCard } from '@/components/shop/YourShopCard';
 import { colors, radius, space, theme } from '@/components/ui';
 
@@ -21,6 +22,7 @@ export default function Home() {
   return (
     <AppFrame title="Your shop's jigs, templates and inserts">
       <YourShopCard />
+      <RecentWork />
       <View style={theme.card}>
         <Text style={theme.body}>
           Every cut file in one place, tied to the device, charger, stock and bit it was made for — with numbered revisions

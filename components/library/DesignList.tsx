@@ -25,12 +25,12 @@ function Revision({ item }: { item: DesignListItem }) {
   );
 }
 
-/** Phones: one card per design, the drawing beside the words. */
-export function DesignCards({ items, onTag }: { items: DesignListItem[]; onTag: (tag: string) => void }) {
+/** Phones: one card per design, the drawing beside the words. `twoAcross` sets them in pairs (wide screens). */
+export function DesignCards({ items, onTag, twoAcross = false }: { items: DesignListItem[]; onTag: (tag: string) => void; twoAcross?: boolean }) {
   return (
-    <View style={styles.cards} role="list" aria-label="Designs">
+    <View style={[styles.cards, twoAcross && styles.cardsTwoAcross]} role="list" aria-label="Designs">
       {items.map((d) => (
-        <View key={d.id} role="listitem" style={styles.card} testID={`design-card-${d.id}`}>
+        <View key={d.id} role="listitem" style={[styles.card, twoAcross && styles.cardHalf]} testID={`design-card-${d.id}`}>
           <Link href={designHref(d.id)} asChild>
             <Pressable accessibilityRole="link" aria-label={`Open ${d.title}`} style={styles.cardMain}>
               <DesignThumb revisionId={d.latestRevisionId} label={d.title} size={76} />
@@ -156,6 +156,8 @@ export function DesignTable({
 
 const styles = StyleSheet.create({
   cards: { gap: space.md },
+  cardsTwoAcross: { flexDirection: 'row', flexWrap: 'wrap' },
+  cardHalf: { flexBasis: '45%', flexGrow: 1 },
   card: { backgroundColor: colors.surface, borderWidth: 1, borderColor: colors.line, borderRadius: 8, padding: space.md, gap: space.sm },
   cardMain: { flexDirection: 'row', gap: space.md, alignItems: 'flex-start' },
   cardText: { flex: 1, gap: 4, minWidth: 0 },

@@ -4,7 +4,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { uniqueEmail } from '../support/accounts';
 import { firstLink, Mailbox } from '../support/mailbox';
-import { PHONE, WIDE, baseUrl, openBrowser, resize, screenshot } from './browser';
+import { PHONE, WIDE, baseUrl, openBrowser, pageApi, resize, screenshot } from './browser';
 
 type Browser = Awaited<ReturnType<typeof openBrowser>>;
 const DEMO_OWNER = { email: 'owner@larchmere.example', password: 'larchmere-owner' };
@@ -71,6 +71,18 @@ describe('accounts, shops and invites in the browser', () => {
     const card = newcomer.getByTestId('current-shop-card');
     await card.getByText('Larchmere Workshop').waitFor({ timeout: 30000 });
     expect(await newcomer.getByTestId('current-role').textContent()).toMatch(/^You are a viewer here/);
+    // Below it, the designs changed last, newest first, as the library's own sort gives them.
+    const shops = (await pageApi<{ shops: { id: string; name: string }[] }>(newcomer, '/me')).shops;
+    const larchmere = shops.find((x) => x.name === 'Larchmere Workshop')!;
+    const latest = (await pageApi<{ items: { id: string; title: string }[] }>(newcomer, `/shops/${larchmere.id}/designs?sort=updated&dir=desc&limit=4`)).items;
+    expect(latest.length).toBeGreaterThan(0);
+    const recent = newcomer.getByTestId('recent-work');
+    await recent.getByTestId(`design-card-${latest[0].id}`).waitFor({ timeout: 30000 });
+    const shownIds = await recent.locator('[data-testid^="design-card-"]').evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')!.replace('design-card-', '')));
+    expect(shownIds).toEqual(latest.map((d) => d.id));
+    // A viewer is not offered drawing a new insert; everyone gets the whole library.
+    expect(await recent.getByTestId('recent-work-charger-insert').count()).toBe(0);
+    await recent.getByTestId('recent-work-library').waitFor();
     await screenshot(newcomer, 'home-viewer-phone');
     await resize(newcomer, WIDE);
     await card.getByText('Larchmere Workshop').waitFor();
