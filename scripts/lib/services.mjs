@@ -167,8 +167,35 @@ export async function startPostgres({ dataDir, port, fast = false }) {
         try { process.kill(pid, 'SIGINT'); } catch { /* already gone */ }
       }
       await stopChild(child, 'SIGINT', () => exited);
+      // stopChild gives up after 10 s and kills only the wrapper: make sure the postmaster itself
+      // has gone, so that nobody is told "stopped" while it still answers. Immediate shutdown
+      // (SIGQUIT) if fast shutdown has not finished within 30 s.
+      if (pid && !(await pidGone(pid, 30000))) {
+        try { process.kill(pid, 'SIGQUIT'); } catch { /* gone meanwhile */ }
+        if (!(await pidGone(pid, 10000))) throw new Error(`PostgreSQL (pid ${pid}) did not stop; see ${path.join(dataDir, 'postgres.log')}`);
+      }
     },
   };
+}
+
+/** Waits until process `pid` no longer exists; false if it still does after `ms`. */
+async function pidGone(pid, ms) {
+  const until = Date.now() + ms;
+  for (;;) {
+    try {
+      process.kill(pid, 0);
+    } catch {
+      return true;
+    }
+    // Exited but not yet reaped (its parent was killed): as gone as it gets.
+    try {
+      if (/^\d+ \(.*\) Z/.test(fs.readFileSync(`/proc/${pid}/stat`, 'utf8'))) return true;
+    } catch {
+      return true;
+    }
+    if (Date.now() > until) return false;
+    await new Promise((r) => setTimeout(r, 50));
+  }
 }
 
 function postmasterPid(pgdata) {
