@@ -12,7 +12,9 @@ import { colors } from '@/components/ui';
 export default function RootLayout() {
   // The fonts ship inside the app bundle; nothing is fetched from a font service.
   const [fontsLoaded] = useFonts({ IBMPlexSans_400Regular, IBMPlexSans_500Medium, IBMPlexSans_700Bold, IBMPlexMono_400Regular });
-  const [queryClient] = useState(() => new QueryClient({ defaultOptions: { queries: { retry: 1, staleTime: 10_000 } } }));
+  // networkMode 'always': offline, a request is tried and fails with words on screen ("No answer from
+  // the server…", components/api/client.ts) instead of waiting, paused, behind an endless spinner.
+  const [queryClient] = useState(() => new QueryClient({ defaultOptions: { queries: { retry: 1, staleTime: 10_000, networkMode: 'always' }, mutations: { networkMode: 'always' } } }));
   if (!fontsLoaded) {
     return (
       <View style={{ flex: 1, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.paper }}>

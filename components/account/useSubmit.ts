@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import type { FieldErrors, FieldValues, Path, UseFormReturn } from 'react-hook-form';
-import { showServerErrors } from './serverErrors';
+import { placeServerErrors } from '../forms/serverErrors';
 
 /**
  * The submit of every account form: runs `send` with the checked values, places the server's
@@ -19,7 +19,7 @@ export function useSubmit<TIn extends FieldValues, TOut>(
       try {
         await send(values);
       } catch (e) {
-        setFormError(showServerErrors(e, form.setError, fields));
+        setFormError(placeServerErrors(e, form.setError, fields));
       }
     },
     (errors) => setFormError(onInvalid ? onInvalid(errors) : null),

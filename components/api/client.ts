@@ -18,7 +18,7 @@ export type ApiInit = RequestInit & { json?: unknown; acceptStatus?: number[] };
 
 export async function api<T>(path: string, init: ApiInit = {}): Promise<T> {
   const { json, headers, acceptStatus, ...rest } = init;
-  const res = await fetch(`${base}/api${path}`, {
+  const res = await reach(`${base}/api${path}`, {
     credentials: 'include',
     ...rest,
     headers: {
@@ -37,6 +37,20 @@ export async function api<T>(path: string, init: ApiInit = {}): Promise<T> {
     throw new ApiError(res.status, err?.code ?? 'http_error', err?.message ?? `Request failed (${res.status})`, err?.fields);
   }
   return data as T;
+}
+
+/** What every screen says when a request got no answer at all (offline, server down). */
+export const NO_ANSWER = 'No answer from the server: check the connection and try again';
+
+/** fetch, with "no answer at all" turned into an ApiError a form can show. */
+export async function reach(url: string, init: RequestInit): Promise<Response> {
+  try {
+    return await fetch(url, init);
+  } catch (e) {
+    // A cancelled request (a query no longer needed) stays what it is.
+    if ((e as Error)?.name === 'AbortError') throw e;
+    throw new ApiError(0, 'no_answer', NO_ANSWER);
+  }
 }
 
 function safeJson(text: string): unknown {

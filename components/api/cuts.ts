@@ -4,7 +4,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ClearanceSuggestion } from '../../shared/fit/clearance';
 import type { CutLogEntry, CutLogInput } from '../../shared/schemas/cuts';
 import { CSRF_HEADER } from '../../shared/schemas/auth';
-import { api, ApiError } from './client';
+import { api, ApiError, reach } from './client';
 import { apiUrl } from './upload';
 
 export const cutKeys = {
@@ -49,7 +49,7 @@ export function useLogCut(revisionId: string) {
       const form = new FormData();
       for (const [k, v] of Object.entries(input)) if (v !== undefined && v !== null) form.append(k, String(v));
       form.append('photo', photo, photo.name);
-      const res = await fetch(apiUrl(`/revisions/${revisionId}/cuts`), { method: 'POST', credentials: 'include', body: form, headers: { Accept: 'application/json', [CSRF_HEADER]: '1' } });
+      const res = await reach(apiUrl(`/revisions/${revisionId}/cuts`), { method: 'POST', credentials: 'include', body: form, headers: { Accept: 'application/json', [CSRF_HEADER]: '1' } });
       const data = await res.json().catch(() => null);
       if (!res.ok) {
         const err = data?.error;

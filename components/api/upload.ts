@@ -2,7 +2,7 @@
 // XMLHttpRequest; it sends what api() sends (the session cookie and the CSRF header) and turns
 // error answers into the same ApiError.
 import { CSRF_HEADER } from '../../shared/schemas/auth';
-import { ApiError } from './client';
+import { ApiError, NO_ANSWER } from './client';
 
 const base = process.env.EXPO_PUBLIC_API_URL ?? '';
 
@@ -53,7 +53,7 @@ export function uploadFile<T>(path: string, file: Blob & { name?: string }, fiel
       const fallback = xhr.status === 413 ? 'The file is larger than the server accepts' : `Upload failed (${xhr.status})`;
       reject(new ApiError(xhr.status, err?.code ?? (xhr.status === 413 ? 'file_too_large' : 'http_error'), err?.message ?? fallback, err?.fields));
     };
-    xhr.onerror = () => reject(new ApiError(0, 'network', 'The server could not be reached; check the connection and try again'));
+    xhr.onerror = () => reject(new ApiError(0, 'no_answer', NO_ANSWER));
     xhr.onabort = () => reject(new ApiError(0, 'aborted', 'The upload was cancelled'));
     if (opts.signal) {
       if (opts.signal.aborted) {

@@ -2,11 +2,11 @@
 // editing one. Validated with the same shared schema the API uses.
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { Controller, useForm, type FieldPath, type FieldValues, type UseFormSetError } from 'react-hook-form';
+import { Controller, useForm } from 'react-hook-form';
 import { Text, View } from 'react-native';
 import { z } from 'zod';
 import { CreateDesign, DESIGN_KINDS } from '../../shared/schemas/library';
-import { ApiError } from '../api/client';
+import { placeServerErrors } from '../forms/serverErrors';
 import { Segmented } from '../forms/Segmented';
 import { space, theme } from '../ui';
 import { Button, FieldError, KIND_LABEL, Notice, TextField } from '../library/controls';
@@ -26,15 +26,6 @@ export function splitTags(text: string): string[] {
     .split(',')
     .map((t) => t.trim().toLowerCase())
     .filter(Boolean);
-}
-
-/** Puts the server's per-field messages on the fields; returns what could not be placed. */
-export function applyServerErrors<T extends FieldValues>(e: unknown, setError: UseFormSetError<T>, known: string[]): string | null {
-  if (!(e instanceof ApiError)) return e instanceof Error ? e.message : 'Something went wrong; nothing was saved';
-  const fields = e.fields ?? {};
-  const placed = Object.keys(fields).filter((k) => known.some((n) => k === n || k.startsWith(`${n}.`)));
-  for (const k of placed) setError(k as FieldPath<T>, { type: 'server', message: fields[k] });
-  return placed.length === Object.keys(fields).length && placed.length > 0 ? null : e.message;
 }
 
 function TagsField({ value, onChange, error }: { value: string[] | undefined; onChange: (v: string[]) => void; error?: string }) {
@@ -84,7 +75,7 @@ export function DesignForm({
     try {
       await onSubmit(values);
     } catch (e) {
-      setFormError(applyServerErrors(e, setError, ['kind', 'title', 'description', 'tags', 'material']));
+      setFormError(placeServerErrors(e, setError, ['kind', 'title', 'description', 'tags', 'material']));
     }
   });
 

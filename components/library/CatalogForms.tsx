@@ -6,7 +6,7 @@ import { Text, View } from 'react-native';
 import type { z } from 'zod';
 import { ChargerInput, DeviceInput } from '../../shared/schemas/catalog';
 import { useCreateCharger, useCreateDevice } from '../api/catalog';
-import { applyServerErrors } from '../designs/DesignForm';
+import { placeServerErrors } from '../forms/serverErrors';
 import { Segmented } from '../forms/Segmented';
 import { space, theme } from '../ui';
 import { Button, Notice, TextField } from './controls';
@@ -53,7 +53,7 @@ export function DeviceForm({ shopId, onDone }: { shopId: string; onDone: () => v
       reset(emptyDevice);
       onDone();
     } catch (e) {
-      setFormError(applyServerErrors(e, setError, Object.keys(emptyDevice)));
+      setFormError(placeServerErrors(e, setError, Object.keys(emptyDevice)));
     }
   });
   return (
@@ -94,7 +94,7 @@ export function ChargerForm({ shopId, onDone }: { shopId: string; onDone: () => 
       reset(emptyCharger);
       onDone();
     } catch (e) {
-      setFormError(applyServerErrors(e, setError, Object.keys(emptyCharger)));
+      setFormError(placeServerErrors(e, setError, Object.keys(emptyCharger)));
     }
   });
   return (

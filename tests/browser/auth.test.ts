@@ -106,6 +106,16 @@ describe('accounts, shops and invites in the browser', () => {
       await page.getByText('That e-mail and password do not match an account').waitFor({ timeout: 30000 });
       expect(page.url()).toBe(baseUrl() + '/sign-in'); // still on the form, not signed in
       await screenshot(page, `sign-in-wrong-password-${label}`);
+      // With no network at all the form says so in words, keeps what was typed, and signs in once it is back.
+      await page.context().setOffline(true);
+      await page.getByLabel('Password', { exact: true }).fill(DEMO_OWNER.password);
+      await page.getByTestId('sign-in-submit').click();
+      await page.getByText('No answer from the server: check the connection and try again').waitFor({ timeout: 30000 });
+      expect(await page.getByLabel('E-mail', { exact: true }).inputValue()).toBe(DEMO_OWNER.email);
+      await screenshot(page, `sign-in-offline-${label}`);
+      await page.context().setOffline(false);
+      await page.getByTestId('sign-in-submit').click();
+      await page.waitForURL(baseUrl() + '/', { timeout: 30000 });
       // The short-password rule from the shared schema shows before anything is sent.
       await page.goto(baseUrl() + '/sign-up');
       await page.getByLabel('Password', { exact: true }).fill('short');

@@ -7,7 +7,7 @@ import { ApiError } from '@/components/api/client';
 import { useDesign } from '@/components/api/designs';
 import { useInspectUpload, useSaveUpload, type InspectResult, type LengthUnits } from '@/components/api/revisions';
 import type { UploadProgress } from '@/components/api/upload';
-import { applyServerErrors } from '@/components/designs/DesignForm';
+import { placeServerErrors } from '@/components/forms/serverErrors';
 import { FilePicker } from '@/components/designs/FilePicker';
 import { FitNotesForm } from '@/components/designs/FitNotesForm';
 import { InspectResultView } from '@/components/designs/InspectResultView';
@@ -135,7 +135,7 @@ function UploadFlow({ design }: { design: DesignDetail }) {
         setCheck({ state: 'unitsNeeded', message: e.message });
         return;
       }
-      setSaveError(applyServerErrors(e, form.setError, ['message', 'status', 'fitNotes']));
+      setSaveError(placeServerErrors(e, form.setError, ['message', 'status', 'fitNotes']));
     }
   });
 
