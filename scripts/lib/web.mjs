@@ -28,12 +28,23 @@ export function ensureWebExport({ force = false } = {}) {
     return false;
   }
   log('building the web app (expo export; the first build takes about a minute)…');
-  const r = spawnSync(path.join(repoRoot, 'node_modules', '.bin', 'expo'), ['export', '--platform', 'web', '--clear', '--output-dir', 'dist'], {
+  // Built beside dist/ and swapped in when complete: a server or test reading dist/ meanwhile
+  // (another test run, npm start) keeps the old build instead of meeting an emptied folder.
+  const building = `dist.building-${process.pid}`;
+  const old = path.join(repoRoot, `dist.old-${process.pid}`);
+  fs.rmSync(path.join(repoRoot, building), { recursive: true, force: true });
+  const r = spawnSync(path.join(repoRoot, 'node_modules', '.bin', 'expo'), ['export', '--platform', 'web', '--clear', '--output-dir', building], {
     cwd: repoRoot,
     stdio: ['ignore', 'inherit', 'inherit'],
     env: { ...process.env, EXPO_OFFLINE: '1', EXPO_NO_TELEMETRY: '1', CI: '1' },
   });
-  if (r.status !== 0) throw new Error('expo export failed');
-  fs.writeFileSync(stamp, hash);
+  if (r.status !== 0) {
+    fs.rmSync(path.join(repoRoot, building), { recursive: true, force: true });
+    throw new Error('expo export failed');
+  }
+  fs.writeFileSync(path.join(repoRoot, building, '.inputs-hash'), hash);
+  if (fs.existsSync(dist)) fs.renameSync(dist, old);
+  fs.renameSync(path.join(repoRoot, building), dist);
+  fs.rmSync(old, { recursive: true, force: true });
   return true;
 }
