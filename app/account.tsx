@@ -2,7 +2,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { router } from 'expo-router';
 import { useForm } from 'react-hook-form';
 import { Text, View } from 'react-native';
-import { useChangePassword, useSignOut } from '@/components/api/auth';
+import { useChangePassword, useSignOut, useSignOutOthers } from '@/components/api/auth';
 import { FormField } from '@/components/account/FormField';
 import { SignedInOnly } from '@/components/account/SignedInOnly';
 import { useSubmit } from '@/components/account/useSubmit';
@@ -37,10 +37,32 @@ function Account({ me }: { me: Me }) {
           />
         </View>
       </Section>
+      <Section title="Other devices">
+        <SignOutOthers />
+      </Section>
       <Section title="Change the password">
         <ChangePasswordForm />
       </Section>
     </>
+  );
+}
+
+function SignOutOthers() {
+  const others = useSignOutOthers();
+  const ended = others.data?.ended;
+  return (
+    <View style={{ gap: space.sm }}>
+      <Text style={theme.body}>Signed in on a shop computer, a tablet at the bench or a phone you no longer have? End those sessions; this one stays signed in.</Text>
+      {others.error ? <Notice title="Nothing was ended">{others.error.message}</Notice> : null}
+      {ended !== undefined ? (
+        <Notice tone="ok" title="Done">
+          <Text testID="sign-out-others-done">{ended === 0 ? 'You were not signed in anywhere else.' : `Signed out of ${ended === 1 ? 'one other session' : `${ended} other sessions`}.`}</Text>
+        </Notice>
+      ) : null}
+      <View style={theme.row}>
+        <Button tone="secondary" label="Sign out everywhere else" busy={others.isPending} onPress={() => others.mutate()} testID="sign-out-others" />
+      </View>
+    </View>
   );
 }
 

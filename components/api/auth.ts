@@ -58,6 +58,11 @@ export function useSignOut() {
   });
 }
 
+/** Ends the account's sessions on every other browser and device; this one stays signed in. */
+export function useSignOutOthers() {
+  return useMutation({ mutationFn: () => api<{ ended: number }>('/auth/sign-out-others', { method: 'POST' }) });
+}
+
 export function useChangePassword() {
   return useMutation({ mutationFn: (body: ChangePassword) => api<null>('/auth/password', { method: 'POST', json: body }) });
 }

@@ -69,6 +69,12 @@ export function authRoutes(api: ApiRouter): void {
     res.status(204).end();
   });
 
+  // A phone left at the bench, a shared shop PC: end every other session, keep this one.
+  api.route('post', '/auth/sign-out-others', { kind: 'signed-in' }, async (req, res) => {
+    const { user, sessionId } = authOf(req);
+    res.json({ ended: await revokeSessionsOf(db, user.id, sessionId) });
+  });
+
   api.route('get', '/me', { kind: 'signed-in' }, async (req, res) => {
     const { user } = authOf(req);
     const row = await userById(db, user.id);

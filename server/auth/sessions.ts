@@ -61,11 +61,12 @@ export async function revokeSession(db: DB, sessionId: string): Promise<void> {
   await db.updateTable('sessions').set({ revoked_at: new Date() }).where('id', '=', sessionId).where('revoked_at', 'is', null).execute();
 }
 
-/** Ends every live session of a user, except `keep` when given. */
-export async function revokeSessionsOf(db: DB, userId: string, keep?: string): Promise<void> {
-  let q = db.updateTable('sessions').set({ revoked_at: new Date() }).where('user_id', '=', userId).where('revoked_at', 'is', null);
+/** Ends every live session of a user, except `keep` when given; answers how many it ended. */
+export async function revokeSessionsOf(db: DB, userId: string, keep?: string): Promise<number> {
+  let q = db.updateTable('sessions').set({ revoked_at: new Date() }).where('user_id', '=', userId).where('revoked_at', 'is', null).where('expires_at', '>', new Date());
   if (keep) q = q.where('id', '!=', keep);
-  await q.execute();
+  const r = await q.executeTakeFirst();
+  return Number(r.numUpdatedRows);
 }
 
 /** Where the request's token came from: Bearer header (scripts) or the session cookie (web app). */

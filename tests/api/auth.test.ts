@@ -197,6 +197,32 @@ describe('CSRF protection for cookie sessions (OWASP Cheat Sheet: CSRF)', () => 
   });
 });
 
+describe('signing out everywhere else', () => {
+  it('ends every other session of the account, keeps this one, and leaves other people alone', async () => {
+    const p = await signUpVia(ctx);
+    const laptop = await signInVia(ctx, p.email, p.password);
+    const benchTablet = await signInVia(ctx, p.email, p.password);
+    const someoneElse = await signUpVia(ctx);
+    const r = await ctx.http.post('/api/auth/sign-out-others').set(bearer(laptop.token));
+    expect(r.status).toBe(200);
+    expect(r.body).toEqual({ ended: 2 }); // the sign-up's session and the tablet's
+    expect((await ctx.http.get('/api/me').set(bearer(laptop.token))).status).toBe(200);
+    expect((await ctx.http.get('/api/me').set(bearer(benchTablet.token))).status).toBe(401);
+    expect((await ctx.http.get('/api/me').set(bearer(p.token))).status).toBe(401);
+    expect((await ctx.http.get('/api/me').set(bearer(someoneElse.token))).status).toBe(200);
+    // Again: nothing left to end.
+    expect((await ctx.http.post('/api/auth/sign-out-others').set(bearer(laptop.token))).body).toEqual({ ended: 0 });
+  });
+
+  it('from the web app it needs the CSRF header like every other change', async () => {
+    const p = await signUpVia(ctx);
+    const refused = await ctx.http.post('/api/auth/sign-out-others').set('Cookie', p.cookie);
+    expect(refused.status).toBe(403);
+    expect((await ctx.http.get('/api/me').set(bearer(p.token))).status).toBe(200);
+    expect((await ctx.http.post('/api/auth/sign-out-others').set('Cookie', p.cookie).set(CSRF)).status).toBe(200);
+  });
+});
+
 describe('changing the password', () => {
   it('needs the current password, keeps this session and ends all the others', async () => {
     const p = await signUpVia(ctx);

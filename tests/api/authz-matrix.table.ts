@@ -56,6 +56,7 @@ export const MATRIX: Record<string, MatrixRow> = {
   },
   'POST /api/auth/sign-out': { request: () => ({ path: '/api/auth/sign-out' }), expect: signedIn(204) },
   'GET /api/me': { request: () => ({ path: '/api/me' }), expect: signedIn(200) },
+  'POST /api/auth/sign-out-others': { request: () => ({ path: '/api/auth/sign-out-others' }), expect: signedIn(200) },
   'POST /api/auth/password': {
     request: (f, who) => ({ path: '/api/auth/password', body: { currentPassword: f.personOf(who).password, newPassword: 'a-fresh-password-456' } }),
     expect: signedIn(204),

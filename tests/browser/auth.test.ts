@@ -96,6 +96,25 @@ describe('accounts, shops and invites in the browser', () => {
     await screenshot(newcomer, 'members-viewer-phone');
   });
 
+  it('signs out every other session from the account screen, and this one stays', async () => {
+    const page = await browserAt(PHONE);
+    await page.goto(baseUrl() + '/help/safety');
+    const person = { email: uniqueEmail('benchhand'), password: 'marking-gauge-77', name: 'Ivo Hale' };
+    const status = await page.evaluate(async (body) => (await fetch('/api/auth/sign-up', { method: 'POST', credentials: 'include', headers: { 'Content-Type': 'application/json', 'X-Jigwright-CSRF': '1' }, body: JSON.stringify(body) })).status, person);
+    expect(status).toBe(201);
+    // A second device: the same account signed in from outside this browser.
+    const other = await fetch(`${baseUrl()}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: person.email, password: person.password }) });
+    const otherToken = ((await other.json()) as { token: string }).token;
+    await page.goto(baseUrl() + '/account');
+    await page.getByTestId('sign-out-others').click();
+    await page.getByTestId('sign-out-others-done').getByText('Signed out of one other session.').waitFor({ timeout: 30000 });
+    await screenshot(page, 'account-sign-out-others-phone');
+    expect((await fetch(`${baseUrl()}/api/me`, { headers: { authorization: `Bearer ${otherToken}` } })).status).toBe(401);
+    // This browser is still signed in.
+    await page.reload();
+    await page.getByText(person.email).waitFor({ timeout: 30000 });
+  });
+
   for (const [label, viewport] of [['phone', PHONE], ['wide', WIDE]] as const) {
     it(`says so when the password is wrong (${label})`, async () => {
       const page = await browserAt(viewport);
