@@ -1,3 +1,4 @@
+import { counted } from '@/shared/words';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { router } from 'expo-router';
 import { useForm } from 'react-hook-form';
@@ -56,7 +57,7 @@ function SignOutOthers() {
       {others.error ? <Notice title="Nothing was ended">{others.error.message}</Notice> : null}
       {ended !== undefined ? (
         <Notice tone="ok" title="Done">
-          <Text testID="sign-out-others-done">{ended === 0 ? 'You were not signed in anywhere else.' : `Signed out of ${ended === 1 ? 'one other session' : `${ended} other sessions`}.`}</Text>
+          <Text testID="sign-out-others-done">{ended === 0 ? 'You were not signed in anywhere else.' : `Signed out of ${ended === 1 ? 'one other session' : counted(ended, 'other session')}.`}</Text>
         </Notice>
       ) : null}
       <View style={theme.row}>

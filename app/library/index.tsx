@@ -1,3 +1,4 @@
+import { counted } from '@/shared/words';
 import { Text, View } from 'react-native';
 import { useDesignList } from '@/components/api/designs';
 import { AppFrame } from '@/components/layout/AppFrame';
@@ -64,7 +65,7 @@ function ShopLibrary({ shop }: { shop: CurrentShop }) {
           )}
           <View style={[theme.row, { flexWrap: 'wrap', justifyContent: 'space-between' }]}>
             <Text style={theme.muted} role="status">
-              Showing {items.length} design{items.length === 1 ? '' : 's'}
+              Showing {counted(items.length, 'design')}
               {list.hasNextPage ? '; there are more' : ''}
             </Text>
             {list.hasNextPage ? (

@@ -42,14 +42,15 @@ export function cleanFilters(f: LibraryFilters): LibraryFilters {
 
 export const LIBRARY_PAGE_SIZE = 24;
 
-export function useDesignList(shopId: string | null | undefined, filters: LibraryFilters) {
+/** `pageSize`: rows per page (the library's 24 unless told; home asks for a few). */
+export function useDesignList(shopId: string | null | undefined, filters: LibraryFilters, pageSize = LIBRARY_PAGE_SIZE) {
   const clean = cleanFilters(filters);
   return useInfiniteQuery({
-    queryKey: designKeys.list(shopId ?? '-', clean),
+    queryKey: [...designKeys.list(shopId ?? '-', clean), pageSize],
     enabled: !!shopId,
     initialPageParam: null as string | null,
     queryFn: ({ pageParam, signal }) => {
-      const params = new URLSearchParams({ ...(clean as Record<string, string>), limit: String(LIBRARY_PAGE_SIZE) });
+      const params = new URLSearchParams({ ...(clean as Record<string, string>), limit: String(pageSize) });
       if (pageParam) params.set('cursor', pageParam);
       return api<DesignPage>(`/shops/${shopId}/designs?${params}`, { signal });
     },

@@ -1,6 +1,7 @@
 // Two revisions compared: an overlay marking what is only in A, only in B and unchanged (our own
 // palette and line patterns, readable in greyscale), A and B side by side on wide screens or one
 // at a time on phones, and the table of differences with signed deltas.
+import { counted } from '../../shared/words';
 import type makerjs from 'makerjs';
 import { Link } from 'expo-router';
 import { useLayoutEffect, useMemo, useRef, useState } from 'react';
@@ -163,7 +164,7 @@ function CompareLegend({ counts }: { counts: Record<SegmentClass, number> }) {
               <Line x1={1} y1={6} x2={35} y2={6} stroke={s.stroke} strokeWidth={Math.max(1, s.width)} strokeDasharray={s.dash} />
             </Svg>
             <Text style={theme.muted}>
-              {s.label} · {counts[k]} segment{counts[k] === 1 ? '' : 's'}
+              {s.label} · {counted(counts[k], 'segment')}
             </Text>
           </View>
         );

@@ -1,3 +1,4 @@
+import { counted } from '../../shared/words';
 import { Text, View } from 'react-native';
 import { STATUS_LABEL, type DesignDetail, type RevisionStatus } from '../../shared/schemas/library';
 import { formatWhen } from '../library/controls';
@@ -22,7 +23,7 @@ export function describeActivity(a: Entry): string {
       const fmt = str(d.format).toUpperCase() || 'a';
       const units = str(d.sourceUnits);
       const warnings = Number(d.warnings ?? 0);
-      return `uploaded ${fmt === 'a' ? 'a file' : `a ${fmt} file`}${units ? ` drawn in ${units}` : ''}${warnings ? ` (${warnings} warning${warnings === 1 ? '' : 's'})` : ''}`;
+      return `uploaded ${fmt === 'a' ? 'a file' : `a ${fmt} file`}${units ? ` drawn in ${units}` : ''}${warnings ? ` (${counted(warnings, 'warning')})` : ''}`;
     }
     case 'revision.generated':
       return `saved a revision from the ${str(d.generatorId) || 'a'} generator`;

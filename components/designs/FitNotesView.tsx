@@ -1,3 +1,4 @@
+import { counted } from '../../shared/words';
 import type { ReactNode } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { LAYER_STYLE } from '../../shared/geometry/layers';
@@ -98,7 +99,7 @@ export function GeometrySummaryView({ summary, units }: { summary: GeometrySumma
         <Row label="Operations">
           {layers.map(([l, c]) => (
             <Text key={l} style={theme.body}>
-              {LAYER_STYLE[l as LayerName]?.label ?? l}: {c} path{c === 1 ? '' : 's'}
+              {LAYER_STYLE[l as LayerName]?.label ?? l}: {counted(c, 'path')}
             </Text>
           ))}
         </Row>

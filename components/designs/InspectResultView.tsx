@@ -1,3 +1,4 @@
+import { counted } from '../../shared/words';
 import { Image, StyleSheet, Text, View } from 'react-native';
 import type { InspectResult } from '../api/revisions';
 import { colors, radius, space, theme } from '../ui';
@@ -46,7 +47,7 @@ export function InspectResultView({ result, units, fileName }: { result: Inspect
           <Text style={theme.label}>Check before saving</Text>
           {s.openContours > 0 ? (
             <Text style={theme.body}>
-              • {s.openContours} open contour{s.openContours === 1 ? '' : 's'}: a path that does not close on itself cannot be cut as a pocket or a profile.
+              • {counted(s.openContours, 'open contour')}: a path that does not close on itself cannot be cut as a pocket or a profile.
             </Text>
           ) : null}
           {result.warnings.map((w) => (

@@ -1,3 +1,4 @@
+import { counted } from '../../shared/words';
 import { Link } from 'expo-router';
 import { Text, View } from 'react-native';
 import type { DesignDetail } from '../../shared/schemas/library';
@@ -21,7 +22,7 @@ export function Lineage({ design }: { design: DesignDetail }) {
       {design.forks.length ? (
         <View style={{ gap: 2 }}>
           <Text style={theme.label}>
-            Forked {design.forks.length} time{design.forks.length === 1 ? '' : 's'}
+            Forked {counted(design.forks.length, 'time')}
           </Text>
           {design.forks.map((f) => (
             <Text key={f.designId} style={theme.body}>

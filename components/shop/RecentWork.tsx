@@ -12,9 +12,9 @@ const RECENT = 4;
 export function RecentWork() {
   const { current } = useShopContext();
   const { isWide } = useBreakpoint();
-  const list = useDesignList(current?.id, { sort: 'updated', dir: 'desc' });
+  const list = useDesignList(current?.id, { sort: 'updated', dir: 'desc' }, RECENT);
   if (!current) return null;
-  const items = list.data?.pages[0]?.items.slice(0, RECENT) ?? [];
+  const items = list.data?.pages[0]?.items ?? [];
   const canEdit = current.role !== 'viewer';
   return (
     <View style={theme.card} testID="recent-work">

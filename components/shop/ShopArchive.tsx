@@ -1,6 +1,7 @@
 // The owner's archive panel: download the whole library, or import an archive into this shop. An
 // archive the shop already has is refused with the server's own words (when, by whom, how many
 // designs, nothing added); the owner may then import it again, on purpose, as a further copy.
+import { counted } from '../../shared/words';
 import { useRef, useState } from 'react';
 import { Text, View } from 'react-native';
 import { ALREADY_IMPORTED, archiveDownloadUrl, useImportArchive, type ArchiveImportResult } from '../api/archive';
@@ -17,15 +18,13 @@ type State =
   | { step: 'already'; file: File; message: string }
   | { step: 'failed'; file: File; message: string };
 
-const n = (count: number, one: string, many = `${one}s`) => `${count} ${count === 1 ? one : many}`;
-
 function summary(r: ArchiveImportResult): string {
-  const parts = [n(r.designs, 'design'), n(r.revisions, 'revision'), n(r.files, 'file'), n(r.cutLogs, 'cut log')];
+  const parts = [counted(r.designs, 'design'), counted(r.revisions, 'revision'), counted(r.files, 'file'), counted(r.cutLogs, 'cut log')];
   const catalog = [
     r.devices.added || r.devices.skipped ? `devices: ${r.devices.added} added${r.devices.skipped ? `, ${r.devices.skipped} already in the catalog` : ''}` : '',
     r.chargers.added || r.chargers.skipped ? `charger pads: ${r.chargers.added} added${r.chargers.skipped ? `, ${r.chargers.skipped} already in the catalog` : ''}` : '',
   ].filter(Boolean);
-  return `${parts.join(', ')}${r.photos ? ` (${n(r.photos, 'photo')})` : ''}${catalog.length ? `; ${catalog.join('; ')}` : ''}.`;
+  return `${parts.join(', ')}${r.photos ? ` (${counted(r.photos, 'photo')})` : ''}${catalog.length ? `; ${catalog.join('; ')}` : ''}.`;
 }
 
 export function ShopArchive({ shopId, shopName }: { shopId: string; shopName: string }) {
@@ -121,7 +120,7 @@ export function ShopArchive({ shopId, shopName }: { shopId: string; shopName: st
           <Text style={theme.body} testID="archive-already">
             {state.message}
           </Text>
-          <Text style={theme.muted}>Importing it again adds a second copy of each of its designs beside the first; the first copy stays as it is.</Text>
+          <Text style={theme.muted}>Importing it again adds one more copy of each of its designs; the designs already here stay as they are.</Text>
         </Notice>
       ) : null}
 

@@ -8,6 +8,7 @@
 // so (409 already_imported) before any object is written, unless the owner asked for it `again`;
 // the record of each import (archive_imports, migration 0007) goes in the same transaction as the
 // rows, and its unique index turns a second import running at the same moment into the same 409.
+import { counted, timesInWords } from '../../shared/words';
 import { createHash, randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import { Transform, type Readable } from 'node:stream';
@@ -159,7 +160,7 @@ export async function importArchive(deps: Deps, target: ImportTarget, file: stri
     }
     if (!manifest || !plan) throw bad('no_manifest', `The archive is empty: it has no ${MANIFEST_NAME}.`);
     const missing = [...plan.files.entries()].filter(([, f]) => !f.seen).map(([p]) => p);
-    if (missing.length) throw bad('missing_files', `The archive is missing ${missing.length} file${missing.length === 1 ? '' : 's'} its manifest lists (the first is "${missing[0].slice(0, 120)}"). Nothing was imported.`);
+    if (missing.length) throw bad('missing_files', `The archive is missing ${counted(missing.length, 'file')} its manifest lists (the first is "${missing[0].slice(0, 120)}"). Nothing was imported.`);
     return await insertRows(deps, target, manifest, manifestSha256, plan);
   } catch (e) {
     source.destroy();
@@ -306,7 +307,6 @@ async function firstImportOf(db: Kysely<Database>, shopId: string, manifestSha25
 }
 
 const inWords = (d: Date) => `${d.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' })} at ${d.toISOString().slice(11, 16)} UTC`;
-const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 /** 409: the shop has this archive already; when, by whom, how much, and that nothing was added. */
 async function alreadyImported(db: Kysely<Database>, prior: ImportRecord): Promise<HttpError> {
@@ -322,11 +322,11 @@ async function alreadyImported(db: Kysely<Database>, prior: ImportRecord): Promi
     copies,
   };
   const who = by ? by.name : 'someone who no longer has an account';
-  const since = copies ? ` Since then it has been imported again as copies ${copies === 1 ? 'once' : copies === 2 ? 'twice' : `${copies} times`}.` : '';
+  const since = copies ? ` Since then it has been imported again as copies ${timesInWords(copies)}.` : '';
   return new HttpError(
     409,
     ALREADY_IMPORTED,
-    `This archive of ${prior.source_shop_name} (exported ${inWords(prior.exported_at)}) was already imported into this shop on ${inWords(prior.imported_at)} by ${who}, with ${plural(prior.designs, 'design')}.${since} Nothing was added this time. Import it again as copies only if you want ${copies ? 'another' : 'a second'} set of its designs.`,
+    `This archive of ${prior.source_shop_name} (exported ${inWords(prior.exported_at)}) was already imported into this shop on ${inWords(prior.imported_at)} by ${who}, with ${counted(prior.designs, 'design')}.${since} Nothing was added this time. Import it again as copies only if you want ${copies ? 'another' : 'a second'} set of its designs.`,
     details,
   );
 }
