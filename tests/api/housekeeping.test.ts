@@ -77,6 +77,37 @@ describe('ended rate-limit windows', () => {
   });
 });
 
+describe('housekeeping with several API processes', () => {
+  it('one round at a time: while another process holds the lock, a round is skipped; the next one runs', async () => {
+    const { HOUSEKEEPING_LOCK } = await import('../../server/housekeeping');
+    const { sql } = await import('kysely');
+    const key = 'revisions/00000000-0000-4000-8000-00000000beef/top.dxf';
+    await ctx.deps.objects.put(key, Buffer.from('0\nEOF\n'), 'application/dxf');
+    let release!: () => void;
+    const held = new Promise<void>((r) => (release = r));
+    let locked!: () => void;
+    const isLocked = new Promise<void>((r) => (locked = r));
+    // "Another process": a transaction holding the same advisory lock.
+    const other = ctx.db.transaction().execute(async (tx) => {
+      await sql`select pg_advisory_xact_lock(${HOUSEKEEPING_LOCK})`.execute(tx);
+      locked();
+      await held;
+    });
+    await isLocked;
+    const h = startHousekeeping(ctx.deps, { firstAfterMs: 0, everyMs: 50, graceSeconds: 0 });
+    try {
+      await expect.poll(() => h.skipped, { timeout: 5000 }).toBeGreaterThanOrEqual(1);
+      expect(await ctx.deps.objects.list(key)).toHaveLength(1);
+      release();
+      await other;
+      await expect.poll(async () => (await ctx.deps.objects.list(key)).length, { timeout: 5000 }).toBe(0);
+    } finally {
+      release();
+      await h.stop();
+    }
+  });
+});
+
 async function liveSessionIds(userId: string) {
   return (await ctx.db.selectFrom('sessions').select('id').where('user_id', '=', userId).where('revoked_at', 'is', null).where('expires_at', '>', new Date()).execute()).map((r) => r.id);
 }
